@@ -1,0 +1,10 @@
+export { WorkerPool, getSharedPool, closeSharedPools, DEFAULT_TARGET_TILE_COST } from './pool.js';
+export type { PoolOptions, PoolJob, JobProgress, JobResult } from './pool.js';
+export { planTiles, totalCost } from './ranges.js';
+export type { Segment, Tile, TilePlanOptions } from './ranges.js';
+export { sharedFloat32, sharedFloat64, sharedInt32, toShared, isShared } from './shared.js';
+export type { SharedTypedArray, SharedBuffers } from './shared.js';
+export { builtModuleUrl, loadKernel } from './kernel.js';
+export type { RangeKernel, KernelModule, KernelRef } from './kernel.js';
+export { PoolError } from './errors.js';
+export type { PoolErrorCode, TileDescription } from './errors.js';

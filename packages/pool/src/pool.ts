@@ -1,0 +1,263 @@
+/**
+ * The texel-parallel scheduler: one piscina pool per process (per thread count), jobs made of tiles of
+ * a named kernel over shared buffers, fair interleaving of concurrent jobs, throttled progress,
+ * cancellation by AbortSignal, and failures mapped onto PoolError.
+ */
+
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { Piscina } from 'piscina';
+import { abortedError, invalidJobError, PoolError, poolClosedError, tileFailedError, type TileDescription } from './errors.js';
+import { builtModuleUrl, loadKernel, type KernelRef } from './kernel.js';
+import { planTiles, totalCost, type Segment, type Tile } from './ranges.js';
+import { isShared, type SharedBuffers } from './shared.js';
+import type { TileTask } from './worker.js';
+
+export interface PoolOptions {
+  /**
+   * Worker threads. Default: os.availableParallelism(). 0 runs every kernel inline on the calling thread
+   * (same kernels, same results; for debugging and tiny jobs). Range 0..256.
+   */
+  readonly threads?: number;
+}
+
+export interface JobProgress {
+  /** Work finished and total work, in the job's cost units (items x cost per item). */
+  readonly done: number;
+  readonly total: number;
+  readonly tilesDone: number;
+  readonly tilesTotal: number;
+}
+
+export interface PoolJob<P = unknown> {
+  readonly kernel: KernelRef;
+  readonly buffers: SharedBuffers;
+  readonly segments: readonly Segment[];
+  /** Parameters for every tile, or one entry per segment (structured-cloneable, small). */
+  readonly params?: P;
+  readonly segmentParams?: readonly P[];
+  /** Cost units per tile; default 200 000 (about 2-5 ms of a GGX kernel). */
+  readonly targetTileCost?: number;
+  readonly signal?: AbortSignal;
+  readonly onProgress?: (progress: JobProgress) => void;
+  /** Minimum milliseconds between progress events (the last event is always sent). Default 100. */
+  readonly progressIntervalMs?: number;
+}
+
+export interface JobResult {
+  readonly tiles: number;
+  readonly cost: number;
+  readonly elapsedMs: number;
+}
+
+export const DEFAULT_TARGET_TILE_COST = 200_000;
+
+function describeTile(tile: Tile, segments: readonly Segment[]): TileDescription {
+  const seg = segments[tile.segment];
+  return { segment: tile.segment, label: seg?.label ?? `segment ${tile.segment}`, begin: tile.begin, end: tile.end };
+}
+
+export class WorkerPool {
+  readonly threads: number;
+  #piscina: Piscina | null = null;
+  #closed = false;
+
+  constructor(options: PoolOptions = {}) {
+    const threads = options.threads ?? availableParallelism();
+    if (!Number.isInteger(threads) || threads < 0 || threads > 256) {
+      throw invalidJobError(`threads must be an integer in 0..256, got ${String(options.threads)}`);
+    }
+    this.threads = threads;
+  }
+
+  get closed(): boolean {
+    return this.#closed;
+  }
+
+  #failActive: Set<(error: PoolError) => void> = new Set();
+
+  #workers(): Piscina {
+    if (this.#piscina === null) {
+      const filename = builtModuleUrl(import.meta.url, './worker.js');
+      if (!existsSync(fileURLToPath(filename))) {
+        throw new PoolError('KERNEL_NOT_FOUND', `the pool's built worker ${fileURLToPath(filename)} is missing; run the build (pnpm run build) first`);
+      }
+      this.#piscina = new Piscina({
+        filename,
+        minThreads: this.threads,
+        maxThreads: this.threads,
+        concurrentTasksPerWorker: 1,
+        idleTimeout: 60_000,
+      });
+      // A worker that cannot start (or dies outside a task) fails the running jobs instead of hanging them.
+      this.#piscina.on('error', (error: unknown) => {
+        const failure = new PoolError('WORKER_DIED', `a pool worker failed: ${error instanceof Error ? error.message : String(error)}`, { cause: error });
+        for (const fail of [...this.#failActive]) fail(failure);
+      });
+    }
+    return this.#piscina;
+  }
+
+  /** Runs every tile of a job; resolves when all are written, rejects on abort or the first failure. */
+  run<P>(job: PoolJob<P>): Promise<JobResult> {
+    if (this.#closed) return Promise.reject(poolClosedError());
+    for (const [name, array] of Object.entries(job.buffers)) {
+      if (this.threads > 0 && !isShared(array)) {
+        return Promise.reject(invalidJobError(`buffer "${name}" is not backed by a SharedArrayBuffer`));
+      }
+    }
+    if (job.segmentParams !== undefined && job.segmentParams.length !== job.segments.length) {
+      return Promise.reject(invalidJobError('segmentParams must have one entry per segment'));
+    }
+    if (job.signal?.aborted) return Promise.reject(abortedError(job.signal.reason));
+    const tiles = planTiles(job.segments, { targetCost: job.targetTileCost ?? DEFAULT_TARGET_TILE_COST });
+    return this.threads === 0 ? this.#runInline(job, tiles) : this.#runThreaded(job, tiles);
+  }
+
+  #runThreaded<P>(job: PoolJob<P>, tiles: readonly Tile[]): Promise<JobResult> {
+    const started = performance.now();
+    const total = totalCost(tiles);
+    let piscina: Piscina;
+    try {
+      piscina = this.#workers();
+    } catch (error) {
+      return Promise.reject(error);
+    }
+    // Each job keeps a small window of tiles queued, so concurrent jobs interleave in the FIFO queue.
+    const window = Math.max(2, this.threads * 2);
+    const interval = job.progressIntervalMs ?? 100;
+    return new Promise<JobResult>((resolve, reject) => {
+      let next = 0;
+      let inFlight = 0;
+      let done = 0;
+      let tilesDone = 0;
+      let settled = false;
+      let lastProgress = 0;
+      const onAbort = (): void => finish(abortedError(job.signal?.reason));
+      const finish = (error: PoolError | null): void => {
+        if (settled) return;
+        settled = true;
+        job.signal?.removeEventListener('abort', onAbort);
+        this.#failActive.delete(finish);
+        if (error === null) resolve({ tiles: tiles.length, cost: total, elapsedMs: performance.now() - started });
+        else reject(error);
+      };
+      job.signal?.addEventListener('abort', onAbort, { once: true });
+      this.#failActive.add(finish);
+      const report = (): void => {
+        if (job.onProgress === undefined) return;
+        const now = performance.now();
+        if (tilesDone === tiles.length || now - lastProgress >= interval) {
+          lastProgress = now;
+          job.onProgress({ done, total, tilesDone, tilesTotal: tiles.length });
+        }
+      };
+      const launch = (): void => {
+        while (!settled && inFlight < window && next < tiles.length) {
+          const tile = tiles[next++]!;
+          inFlight++;
+          const task: TileTask = {
+            kernel: job.kernel,
+            buffers: job.buffers,
+            begin: tile.begin,
+            end: tile.end,
+            params: job.segmentParams === undefined ? job.params : job.segmentParams[tile.segment],
+          };
+          piscina.run(task).then(() => {
+            inFlight--;
+            if (settled) return;
+            done += tile.cost;
+            tilesDone++;
+            report();
+            if (tilesDone === tiles.length) finish(null);
+            else launch();
+          }, (error: unknown) => {
+            inFlight--;
+            if (settled) return;
+            finish(this.#closed ? poolClosedError() : tileFailedError(job.kernel.name, describeTile(tile, job.segments), error));
+          });
+        }
+      };
+      if (tiles.length === 0) {
+        report();
+        finish(null);
+        return;
+      }
+      launch();
+    });
+  }
+
+  async #runInline<P>(job: PoolJob<P>, tiles: readonly Tile[]): Promise<JobResult> {
+    const started = performance.now();
+    const total = totalCost(tiles);
+    let kernel;
+    try {
+      kernel = await loadKernel(job.kernel);
+    } catch (error) {
+      throw new PoolError('KERNEL_NOT_FOUND', `cannot load kernel "${job.kernel.name}" from ${job.kernel.moduleUrl}: ${error instanceof Error ? error.message : String(error)}`, { cause: error, kernel: job.kernel.name });
+    }
+    const interval = job.progressIntervalMs ?? 100;
+    let done = 0;
+    let lastProgress = 0;
+    let lastYield = performance.now();
+    for (let i = 0; i < tiles.length; i++) {
+      if (job.signal?.aborted) throw abortedError(job.signal.reason);
+      if (this.#closed) throw poolClosedError();
+      const tile = tiles[i]!;
+      const params = job.segmentParams === undefined ? job.params : job.segmentParams[tile.segment];
+      try {
+        kernel(job.buffers, tile.begin, tile.end, params);
+      } catch (error) {
+        throw tileFailedError(job.kernel.name, describeTile(tile, job.segments), error);
+      }
+      done += tile.cost;
+      const now = performance.now();
+      if (job.onProgress !== undefined && (i === tiles.length - 1 || now - lastProgress >= interval)) {
+        lastProgress = now;
+        job.onProgress({ done, total, tilesDone: i + 1, tilesTotal: tiles.length });
+      }
+      // Let timers, abort signals and other jobs run about every 10 ms.
+      if (now - lastYield > 10) {
+        await new Promise<void>((r) => setImmediate(r));
+        lastYield = performance.now();
+      }
+    }
+    if (job.signal?.aborted) throw abortedError(job.signal.reason);
+    if (tiles.length === 0) job.onProgress?.({ done: 0, total: 0, tilesDone: 0, tilesTotal: 0 });
+    return { tiles: tiles.length, cost: total, elapsedMs: performance.now() - started };
+  }
+
+  /** Ends all workers; running jobs reject with POOL_CLOSED. Idempotent. */
+  async close(): Promise<void> {
+    if (this.#closed) return;
+    this.#closed = true;
+    const piscina = this.#piscina;
+    this.#piscina = null;
+    if (piscina !== null) await piscina.destroy();
+    for (const [key, pool] of sharedPools) if (pool === this) sharedPools.delete(key);
+  }
+}
+
+const sharedPools = new Map<number, WorkerPool>();
+
+/**
+ * The process-wide pool for a thread count (default: available parallelism), created on first use and
+ * shared by every bake in the process. Call closeSharedPools() before exit to end the workers.
+ */
+export function getSharedPool(options: PoolOptions = {}): WorkerPool {
+  const threads = options.threads ?? availableParallelism();
+  let pool = sharedPools.get(threads);
+  if (pool === undefined || pool.closed) {
+    pool = new WorkerPool({ threads });
+    sharedPools.set(threads, pool);
+  }
+  return pool;
+}
+
+/** Closes every shared pool of this process. */
+export async function closeSharedPools(): Promise<void> {
+  const pools = [...sharedPools.values()];
+  sharedPools.clear();
+  await Promise.all(pools.map((pool) => pool.close()));
+}

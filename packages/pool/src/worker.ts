@@ -1,0 +1,18 @@
+/** The piscina worker entry: runs one tile of a named kernel on shared buffers. */
+
+import { loadKernel, type KernelRef } from './kernel.js';
+import type { SharedBuffers } from './shared.js';
+
+export interface TileTask {
+  readonly kernel: KernelRef;
+  readonly buffers: SharedBuffers;
+  readonly begin: number;
+  readonly end: number;
+  readonly params: unknown;
+}
+
+export default async function runTile(task: TileTask): Promise<number> {
+  const kernel = await loadKernel(task.kernel);
+  kernel(task.buffers, task.begin, task.end, task.params);
+  return task.end - task.begin;
+}
