@@ -1,0 +1,16 @@
+export { CodecError } from './errors.js';
+export type { CodecErrorCode } from './errors.js';
+export { DEFAULT_DECODE_LIMITS, resolveDecodeLimits, countPixelIssues } from './image.js';
+export type { FloatImage, DecodedImage, PixelIssues, DecodeLimits, ResolvedDecodeLimits } from './image.js';
+export { decodeHdr, encodeHdr, readHdrHeader, encodeRgbePixel } from './hdr.js';
+export type { HdrHeader, HdrDecodeOptions, HdrEncodeOptions } from './hdr.js';
+export { decodeExr, encodeExr, readExrHeader, EXR_MAGIC } from './exr.js';
+export type { ExrHeader, ExrChannel, ExrCompression, ExrPixelType, ExrDecodeOptions, ExrEncodeOptions } from './exr.js';
+export { decodePfm, encodePfm } from './pfm.js';
+export type { PfmDecodeOptions, PfmEncodeOptions } from './pfm.js';
+export { encodePng, crc32, linearToSrgb, toneMapToSrgb8, packRgbm, unpackRgbm, packRgbd, unpackRgbd } from './png.js';
+export type { Rgba8Image, PngEncodeOptions, PngFilterChoice, PreviewOptions, ToneCurve } from './png.js';
+export { encodeKtx2, decodeKtx2, buildDfd, packTexels, unpackTexels, ktx2FormatInfo, ktx2FormatFromVk, KTX2_IDENTIFIER } from './ktx2.js';
+export type { Ktx2Format, Ktx2EncodeInput, Ktx2File, Ktx2Level, Ktx2Supercompression, Ktx2DecodeOptions } from './ktx2.js';
+export { sniffFormat, decodeImage } from './sniff.js';
+export type { SniffedFormat, DecodeImageOptions } from './sniff.js';
