@@ -140,7 +140,7 @@ export interface Ktx2EncodeInput {
   readonly levels: readonly Float32Array[];
   /** Extra key/values (keys must not start with "KTX"/"ktx"); strings are written NUL-terminated. */
   readonly keyValues?: Readonly<Record<string, string | Uint8Array>>;
-  /** KTXwriter value; default "lightkiln". */
+  /** KTXwriter value; default "lightkiln"; "" omits the entry (the spec only encourages it). */
   readonly writer?: string;
   readonly supercompression?: Ktx2Supercompression;
   /** zlib level when supercompressed; default 6. */
@@ -177,7 +177,7 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   const enc = new TextEncoder();
   const kv: [string, Uint8Array][] = [];
   kv.push(['KTXorientation', enc.encode('rd\0')]);
-  kv.push(['KTXwriter', enc.encode(`${input.writer ?? 'lightkiln'}\0`)]);
+  if (input.writer !== '') kv.push(['KTXwriter', enc.encode(`${input.writer ?? 'lightkiln'}\0`)]);
   for (const [key, value] of Object.entries(input.keyValues ?? {})) {
     if (/^ktx/i.test(key)) throw invalidArgument(file, `key "${key}" uses the reserved KTX prefix`);
     if (key.length === 0 || key.includes('\0')) throw invalidArgument(file, `invalid key "${key}"`);
