@@ -15,6 +15,12 @@ import { radicalInverseBase2 } from './sequence.js';
  */
 export function createGgxHalfVectorSet(alpha: number, sampleCount: number): Float64Array {
   const set = new Float64Array(sampleCount * 3);
+  fillGgxHalfVectorSet(set, alpha, sampleCount);
+  return set;
+}
+
+/** Fills set[0 .. 3 * sampleCount) like createGgxHalfVectorSet, reusing the caller's array. */
+export function fillGgxHalfVectorSet(set: Float64Array, alpha: number, sampleCount: number): void {
   const a2 = alpha * alpha;
   for (let i = 0; i < sampleCount; i++) {
     const u1 = i / sampleCount;
@@ -24,7 +30,6 @@ export function createGgxHalfVectorSet(alpha: number, sampleCount: number): Floa
     set[3 * i + 1] = Math.sqrt(Math.max(0, 1 - cos2));
     set[3 * i + 2] = Math.cos(2 * PI * u2);
   }
-  return set;
 }
 
 /**
@@ -32,13 +37,13 @@ export function createGgxHalfVectorSet(alpha: number, sampleCount: number): Floa
  * to out[o + 1]. Per sample the estimator is (1 - Fc or Fc) G2 (v.h) / ((n.h)(n.v)), l = 2 (v.h) h - v,
  * samples with n.l <= 0 contribute 0 (pdf p(l) = D (n.h) / (4 v.h); Heitz 2014 G2).
  */
-export function integrateDfg(out: Float64Array, o: number, nDotV: number, alpha: number, halfVectorSet: Float64Array): void {
+export function integrateDfg(out: Float64Array, o: number, nDotV: number, alpha: number, halfVectorSet: Float64Array, sampleCount: number = halfVectorSet.length / 3): void {
   const mu = nDotV;
   const sinV = Math.sqrt(Math.max(0, 1 - mu * mu));
   const a2 = alpha * alpha;
   // Lambda(v) with tan^2 = (1 - mu^2) / mu^2 (Heitz 2014).
   const lambdaV = 0.5 * (-1 + Math.sqrt(1 + (a2 * (1 - mu * mu)) / (mu * mu)));
-  const n = halfVectorSet.length / 3;
+  const n = sampleCount;
   let sumA = 0;
   let sumB = 0;
   for (let i = 0; i < n; i++) {

@@ -1,0 +1,534 @@
+/**
+ * The async API: createBaker(options) -> Baker with bake(recipe), plan(recipe) and close(). A bake runs the
+ * stages lazily behind the content-hash cache: every artifact and intermediate has a key derived from the
+ * input bytes, the recipe fields it depends on and its algorithm version, so an unchanged rebake reads
+ * only the finished artifacts and a changed option recomputes only what depends on it.
+ */
+
+import { randomBytes } from 'node:crypto';
+import { lstatSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { encodeExr, encodeHdr } from '@lightkiln/codecs';
+import { getSharedPool, toShared, WorkerPool } from '@lightkiln/pool';
+import { EntryCache, type CacheStats } from './cache/entry.js';
+import { FolderStore, MemoryStore, pruneStore, type CacheStore } from './cache/store.js';
+import { aborted, invalidOption, LightkilnError, toLightkilnError, unsafePath } from './errors.js';
+import { sha256Hex, stageKey } from './hash.js';
+import { CONVENTIONS, MANIFEST_SCHEMA_VERSION, shTriples, TOOL_NAME, TOOL_VERSION, type Manifest, type ManifestArtifact, type ManifestLevel } from './manifest.js';
+import { resolveRecipe, SAFE_NAME, type Recipe, type ResolvedRecipe } from './recipe.js';
+import type { BakeProgress, StageContext } from './stages/context.js';
+import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
+import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
+import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
+import { buildPyramid, pyramidLayout, type Pyramid } from './stages/pyramid.js';
+import { decodeSource, type InputFile, type SanitizeCounts, type SourceImage } from './stages/source.js';
+import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specular.js';
+
+/** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
+export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
+  source: 1, pyramid: 1, level: 1, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1,
+});
+
+export interface BakerOptions {
+  /** Worker threads; default the machine's available parallelism; 0 runs inline. Range 0..256. */
+  readonly threads?: number;
+  /** An explicit pool (overrides threads); the baker does not close it. */
+  readonly pool?: WorkerPool;
+  /**
+   * Cache: a folder path, a CacheStore, or false for none. Default: the folder ".lightkiln-cache" in
+   * the current directory.
+   */
+  readonly cache?: string | CacheStore | false;
+  /** Least-recently-used eviction after each bake down to this many bytes; default unlimited. */
+  readonly cacheMaxBytes?: number;
+  /** Cost units (texels x samples) per pool tile; default 200 000. */
+  readonly targetTileCost?: number;
+}
+
+export interface BakeRunOptions {
+  /** Write the artifacts here (created if missing); without it the bake only returns them. */
+  readonly outDir?: string;
+  readonly signal?: AbortSignal;
+  readonly onProgress?: (progress: BakeProgress) => void;
+}
+
+export type ArtifactKind = 'specular' | 'irradiance' | 'lut' | 'view' | 'manifest';
+
+export interface BakedArtifact {
+  readonly kind: ArtifactKind;
+  /** File name inside the output folder. */
+  readonly name: string;
+  /** Full path when written (outDir given), else null. */
+  readonly path: string | null;
+  readonly format: string;
+  readonly bytes: Uint8Array;
+  readonly sha256: string;
+  readonly fromCache: boolean;
+}
+
+export interface BakeResult {
+  readonly artifacts: readonly BakedArtifact[];
+  readonly manifest: Manifest;
+  readonly cache: CacheStats;
+}
+
+export interface PlanItem {
+  readonly kind: string;
+  readonly key: string;
+  readonly cached: boolean;
+  /** True when a bake would compute (not read) this item. */
+  readonly willCompute: boolean;
+}
+
+export interface BakePlan {
+  readonly probe: string;
+  readonly upToDate: boolean;
+  readonly artifacts: readonly (PlanItem & { readonly name: string })[];
+  readonly stages: readonly PlanItem[];
+}
+
+interface Keys {
+  readonly inputHash: string;
+  readonly source: string;
+  readonly pyramid: string;
+  readonly levels: readonly string[];
+  readonly sh: string;
+  readonly irradianceCube: string;
+  readonly dfg: string;
+  readonly specularFile: string;
+  readonly irradianceFile: string;
+  readonly lutFile: string;
+  readonly views: readonly { name: string; key: string; kind: 'mirror' | 'irradiance'; format: 'hdr' | 'exr' }[];
+}
+
+function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
+  const V = STAGE_VERSIONS;
+  const source = stageKey('source', V.source!, { inputHash, layout: recipe.input.layout, sanitize: recipe.sanitize });
+  const pyramid = stageKey('pyramid', V.pyramid!, { source, size: recipe.size, rotationDeg: recipe.rotationDeg });
+  const levels = recipe.roughness.map((roughness, m) => stageKey('level', V.level!, {
+    pyramid, level: m, size: Math.max(1, recipe.size >> m), roughness, samples: m === 0 ? 0 : recipe.samples[m],
+    filtered: recipe.filtered, lodBias: recipe.lodBias, clampLuminance: recipe.clampLuminance, rotateSequence: recipe.rotateSequence,
+    quality: m === 0 ? 'mirror' : recipe.quality,
+  }));
+  const sh = stageKey('sh', V.sh!, { pyramid, window: recipe.irradiance.shWindow, width: recipe.irradiance.shWindowWidth });
+  const irradianceCube = stageKey('irradianceCube', V.irradianceCube!, { pyramid, size: recipe.irradiance.cubeSize, source: recipe.irradiance.cubeSource, sh: recipe.irradiance.cubeSource === 'sh9' ? sh : null });
+  const dfg = stageKey('dfg', V.dfg!, { size: recipe.dfg.size, samples: recipe.dfg.samples, multiscatter: recipe.dfg.multiscatter, cloth: recipe.dfg.cloth });
+  const fileOpts = { supercompression: recipe.output.supercompression };
+  const specularFile = stageKey('specularFile', V.specularFile!, { levels, format: recipe.output.specularFormat, ...fileOpts, source });
+  const irradianceFile = stageKey('irradianceFile', V.irradianceFile!, { irradianceCube, sh, format: recipe.output.irradianceFormat, ...fileOpts });
+  const lutFile = stageKey('lutFile', V.lutFile!, { dfg, ...fileOpts });
+  const views = recipe.output.views.flatMap((format) => (['mirror', 'irradiance'] as const).map((kind) => ({
+    name: `${recipe.name}.${kind}.${format}`, kind, format,
+    key: stageKey('view', V.view!, { of: kind === 'mirror' ? levels[0] : irradianceCube, format }),
+  })));
+  return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views };
+}
+
+function toF32(a: unknown): Float32Array {
+  if (!(a instanceof Float32Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
+  return a;
+}
+
+/** One bake: memoised stage getters over the cache. */
+class BakeRun {
+  readonly timings: Record<string, number> = {};
+  #source: Promise<SourceImage> | null = null;
+  #pyramid: Promise<{ pyramid: Pyramid; sanitized: SanitizeCounts }> | null = null;
+  #levels: Promise<LevelResult[]> | null = null;
+  #sh: Promise<ShResult> | null = null;
+  #irr: Promise<Float32Array> | null = null;
+
+  constructor(readonly recipe: ResolvedRecipe, readonly inputs: readonly InputFile[], readonly keys: Keys, readonly cache: EntryCache, readonly ctx: StageContext) {}
+
+  #check(): void {
+    if (this.ctx.signal?.aborted) throw aborted(this.ctx.signal.reason);
+  }
+
+  async #timed<T>(stage: string, fn: () => Promise<T>): Promise<T> {
+    const t0 = performance.now();
+    try {
+      return await fn();
+    } finally {
+      this.timings[stage] = (this.timings[stage] ?? 0) + (performance.now() - t0);
+    }
+  }
+
+  source(): Promise<SourceImage> {
+    this.#source ??= this.#timed('decode', async () => {
+      const entry = await this.cache.get(this.keys.source);
+      if (entry !== null) {
+        const meta = entry.meta as { kind: 'equirect' | 'cube'; width: number; height: number; size: number; sanitized: SanitizeCounts };
+        const data = toF32(entry.arrays[0]);
+        return meta.kind === 'equirect'
+          ? { kind: 'equirect', width: meta.width, height: meta.height, data, sanitized: meta.sanitized }
+          : { kind: 'cube', size: meta.size, data, sanitized: meta.sanitized };
+      }
+      this.#check();
+      const source = decodeSource(this.recipe, this.inputs);
+      await this.cache.put(this.keys.source, {
+        meta: source.kind === 'equirect' ? { kind: 'equirect', width: source.width, height: source.height, sanitized: source.sanitized } : { kind: 'cube', size: source.size, sanitized: source.sanitized },
+        arrays: [source.data],
+      });
+      return source;
+    });
+    return this.#source;
+  }
+
+  pyramid(): Promise<{ pyramid: Pyramid; sanitized: SanitizeCounts }> {
+    this.#pyramid ??= (async () => {
+      const entry = await this.cache.get(this.keys.pyramid);
+      if (entry !== null) {
+        const layout = pyramidLayout(this.recipe.size);
+        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
+      }
+      const source = await this.source();
+      this.#check();
+      const pyramid = await this.#timed('resample', () => buildPyramid(source, this.recipe.size, this.recipe.rotationDeg, this.ctx));
+      await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data] });
+      return { pyramid, sanitized: source.sanitized };
+    })();
+    return this.#pyramid;
+  }
+
+  levels(): Promise<LevelResult[]> {
+    this.#levels ??= (async () => {
+      const r = this.recipe;
+      const results: (LevelResult | null)[] = [];
+      for (let m = 0; m < r.levels; m++) {
+        const entry = await this.cache.get(this.keys.levels[m]!);
+        if (entry === null) {
+          results.push(null);
+          continue;
+        }
+        const meta = entry.meta as { usedSamples: number; relativeErrorEstimate: number };
+        results.push({ level: m, size: Math.max(1, r.size >> m), data: toF32(entry.arrays[0]), usedSamples: meta.usedSamples, relativeErrorEstimate: meta.relativeErrorEstimate });
+      }
+      const missing = results.flatMap((res, m) => (res === null ? [m] : []));
+      if (missing.length > 0) {
+        const { pyramid } = await this.pyramid();
+        this.#check();
+        const computed: LevelResult[] = [];
+        if (missing[0] === 0) computed.push(mirrorLevel(pyramid));
+        const requests = missing.filter((m) => m > 0).map((m) => ({ level: m, size: Math.max(1, r.size >> m), roughness: r.roughness[m]!, samples: r.samples[m]! }));
+        computed.push(...(await this.#timed('specular', () => prefilterLevels(pyramid, requests, r, this.ctx))));
+        for (const level of computed) {
+          results[level.level] = level;
+          await this.cache.put(this.keys.levels[level.level]!, { meta: { usedSamples: level.usedSamples, relativeErrorEstimate: level.relativeErrorEstimate }, arrays: [level.data] });
+        }
+      }
+      return results as LevelResult[];
+    })();
+    return this.#levels;
+  }
+
+  sh(): Promise<ShResult> {
+    this.#sh ??= (async () => {
+      const entry = await this.cache.get(this.keys.sh);
+      if (entry !== null) {
+        const a = entry.arrays;
+        if (!(a[0] instanceof Float64Array) || !(a[1] instanceof Float64Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
+        return { radiance: a[0], irradiance: a[1] };
+      }
+      const { pyramid } = await this.pyramid();
+      const sh = await this.#timed('irradiance', async () => projectSh9(pyramid, 0, this.recipe.irradiance.shWindow, this.recipe.irradiance.shWindowWidth));
+      await this.cache.put(this.keys.sh, { meta: {}, arrays: [sh.radiance, sh.irradiance] });
+      return sh;
+    })();
+    return this.#sh;
+  }
+
+  irradianceCube(): Promise<Float32Array> {
+    this.#irr ??= (async () => {
+      const entry = await this.cache.get(this.keys.irradianceCube);
+      if (entry !== null) return toF32(entry.arrays[0]);
+      const sh = await this.sh();
+      const { pyramid } = await this.pyramid();
+      this.#check();
+      const cube = await this.#timed('irradiance', () => irradianceCube(pyramid, this.recipe.irradiance.cubeSize, this.recipe.irradiance.cubeSource, sh, this.ctx));
+      await this.cache.put(this.keys.irradianceCube, { meta: {}, arrays: [cube] });
+      return cube;
+    })();
+    return this.#irr;
+  }
+
+  async dfg(): Promise<DfgTable> {
+    const entry = await this.cache.get(this.keys.dfg);
+    if (entry !== null) {
+      const meta = entry.meta as { size: number; channels: number; channelNames: string[] };
+      return { ...meta, data: toF32(entry.arrays[0]) };
+    }
+    this.#check();
+    const table = await this.#timed('dfg', () => bakeDfgTable(this.recipe.dfg, this.ctx));
+    await this.cache.put(this.keys.dfg, { meta: { size: table.size, channels: table.channels, channelNames: table.channelNames }, arrays: [table.data] });
+    return table;
+  }
+
+  /** A finished file from the cache, or built and stored; `meta` carries manifest fragments. */
+  async file<M>(key: string, build: () => Promise<{ bytes: Uint8Array; meta: M }>): Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }> {
+    const entry = await this.cache.get(key);
+    if (entry !== null && entry.arrays[0] instanceof Uint8Array) return { bytes: entry.arrays[0], meta: entry.meta as M, fromCache: true };
+    const built = await build();
+    this.#check();
+    await this.cache.put(key, { meta: built.meta, arrays: [built.bytes] });
+    return { ...built, fromCache: false };
+  }
+}
+
+interface SpecularMeta { levels: ManifestLevel[]; sanitized: SanitizeCounts }
+interface IrradianceMeta { radiance: number[]; irradiance: number[] }
+
+export class Baker {
+  readonly #pool: WorkerPool;
+  readonly #ownsPool: boolean;
+  readonly #store: CacheStore | null;
+  readonly #options: BakerOptions;
+  #closed = false;
+
+  constructor(options: BakerOptions = {}) {
+    if (options.threads !== undefined && (!Number.isInteger(options.threads) || options.threads < 0 || options.threads > 256)) {
+      throw invalidOption('threads', 'must be an integer in 0..256', options.threads);
+    }
+    if (options.cacheMaxBytes !== undefined && !(options.cacheMaxBytes >= 0)) throw invalidOption('cacheMaxBytes', 'must be a number >= 0', options.cacheMaxBytes);
+    if (options.targetTileCost !== undefined && !(options.targetTileCost >= 1)) throw invalidOption('targetTileCost', 'must be a number >= 1', options.targetTileCost);
+    this.#options = options;
+    if (options.pool !== undefined) {
+      this.#pool = options.pool;
+      this.#ownsPool = false;
+    } else if (options.threads === 0) {
+      this.#pool = new WorkerPool({ threads: 0 });
+      this.#ownsPool = true;
+    } else {
+      this.#pool = getSharedPool(options.threads === undefined ? {} : { threads: options.threads });
+      this.#ownsPool = false;
+    }
+    const cache = options.cache ?? '.lightkiln-cache';
+    this.#store = cache === false ? null : typeof cache === 'string' ? new FolderStore(cache) : cache;
+  }
+
+  get threads(): number {
+    return this.#pool.threads;
+  }
+
+  get store(): CacheStore | null {
+    return this.#store;
+  }
+
+  #readInputs(recipe: ResolvedRecipe, raw: Recipe): InputFile[] {
+    if (raw.input.bytes !== undefined) {
+      if (raw.input.bytes.length > recipe.limits.maxInputBytes) throw new LightkilnError('LIMIT_EXCEEDED', `${recipe.input.name}: input of ${raw.input.bytes.length} bytes exceeds limits.maxInputBytes (${recipe.limits.maxInputBytes})`, { file: recipe.input.name });
+      return [{ name: recipe.input.name, bytes: raw.input.bytes }];
+    }
+    const paths = recipe.input.faces ?? [recipe.input.path!];
+    return paths.map((path) => {
+      let size: number;
+      try {
+        const st = statSync(path);
+        if (!st.isFile()) throw new LightkilnError('INVALID_INPUT', `${path}: not a regular file`, { file: path });
+        size = st.size;
+      } catch (error) {
+        throw toLightkilnError(error, path);
+      }
+      if (size > recipe.limits.maxInputBytes) throw new LightkilnError('LIMIT_EXCEEDED', `${path}: file of ${size} bytes exceeds limits.maxInputBytes (${recipe.limits.maxInputBytes})`, { file: path });
+      try {
+        const b = readFileSync(path);
+        return { name: path, bytes: new Uint8Array(b.buffer, b.byteOffset, b.byteLength) };
+      } catch (error) {
+        throw toLightkilnError(error, path);
+      }
+    });
+  }
+
+  #prepare(raw: Recipe): { recipe: ResolvedRecipe; inputs: InputFile[]; keys: Keys } {
+    if (this.#closed) throw new LightkilnError('INVALID_OPTION', 'the baker is closed');
+    const recipe = resolveRecipe(raw);
+    const inputs = this.#readInputs(recipe, raw);
+    const inputHash = inputs.length === 1 ? sha256Hex(inputs[0]!.bytes) : sha256Hex(new TextEncoder().encode(inputs.map((i) => sha256Hex(i.bytes)).join(',')));
+    return { recipe, inputs, keys: computeKeys(recipe, inputHash) };
+  }
+
+  /** Reports what a bake of this recipe would read from the cache and what it would compute. */
+  async plan(raw: Recipe): Promise<BakePlan> {
+    const { recipe, keys } = this.#prepare(raw);
+    const cache = new EntryCache(this.#store);
+    const has = async (key: string): Promise<boolean> => cache.has(key);
+    const files: { kind: string; name: string; key: string }[] = [
+      { kind: 'specular', name: `${recipe.name}.specular.ktx2`, key: keys.specularFile },
+      { kind: 'irradiance', name: `${recipe.name}.irradiance.ktx2`, key: keys.irradianceFile },
+      ...(recipe.dfg.enabled ? [{ kind: 'lut', name: `${recipe.name}.dfg.ktx2`, key: keys.lutFile }] : []),
+      ...keys.views.map((v) => ({ kind: 'view', name: v.name, key: v.key })),
+    ];
+    const artifacts = await Promise.all(files.map(async (f) => ({ ...f, cached: await has(f.key), willCompute: false })));
+    const need = (kind: string): boolean => artifacts.some((a) => !a.cached && (a.kind === kind || (kind === 'irradiance' && a.kind === 'view') || (kind === 'specular' && a.kind === 'view')));
+    const levelItems = await Promise.all(keys.levels.map(async (key, m) => ({ kind: `level ${m}`, key, cached: await has(key), willCompute: false })));
+    const levelsComputed = need('specular') ? levelItems.map((l) => ({ ...l, willCompute: !l.cached })) : levelItems;
+    const shItem = { kind: 'sh', key: keys.sh, cached: await has(keys.sh), willCompute: false };
+    const irrItem = { kind: 'irradiance cube', key: keys.irradianceCube, cached: await has(keys.irradianceCube), willCompute: false };
+    const shC = need('irradiance') && !shItem.cached;
+    const irrC = need('irradiance') && !irrItem.cached;
+    const dfgItem = { kind: 'dfg', key: keys.dfg, cached: await has(keys.dfg), willCompute: false };
+    const dfgC = recipe.dfg.enabled && need('lut') && !dfgItem.cached;
+    const pyramidItem = { kind: 'pyramid', key: keys.pyramid, cached: await has(keys.pyramid), willCompute: false };
+    const pyrC = !pyramidItem.cached && (levelsComputed.some((l) => l.willCompute) || shC || irrC);
+    const sourceItem = { kind: 'source', key: keys.source, cached: await has(keys.source), willCompute: false };
+    const srcC = pyrC && !sourceItem.cached;
+    const stages = [
+      { ...sourceItem, willCompute: srcC }, { ...pyramidItem, willCompute: pyrC }, ...levelsComputed,
+      { ...shItem, willCompute: shC }, { ...irrItem, willCompute: irrC }, { ...dfgItem, willCompute: dfgC },
+    ];
+    return {
+      probe: recipe.name,
+      upToDate: artifacts.every((a) => a.cached),
+      artifacts: artifacts.map((a) => ({ ...a, willCompute: !a.cached })),
+      stages,
+    };
+  }
+
+  /** Bakes every artifact of a recipe; with outDir, writes them atomically (nothing is written on failure). */
+  async bake(raw: Recipe, options: BakeRunOptions = {}): Promise<BakeResult> {
+    const started = performance.now();
+    try {
+      if (options.signal?.aborted) throw aborted(options.signal.reason);
+      const { recipe, inputs, keys } = this.#prepare(raw);
+      const outDir = options.outDir;
+      if (outDir !== undefined) checkOutputFolder(outDir, recipe.name);
+      const cache = new EntryCache(this.#store);
+      const ctx: StageContext = { pool: this.#pool, signal: options.signal, onProgress: options.onProgress, targetTileCost: this.#options.targetTileCost };
+      const run = new BakeRun(recipe, inputs, keys, cache, ctx);
+      const r = recipe;
+      const roughnessList = JSON.stringify(r.roughness);
+      const specular = await run.file<SpecularMeta>(keys.specularFile, async () => {
+        const levels = await run.levels();
+        const { sanitized } = await run.pyramid();
+        const bytes = await encodeTimed(run, () => encodeCubeKtx2(levels.map((l) => l.data), r.size, r.output.specularFormat, r.output.supercompression, {
+          'lightkiln.content': 'prefiltered radiance (GGX, split sum, n = v = r)',
+          'lightkiln.roughness': roughnessList,
+          'lightkiln.samples': JSON.stringify(r.samples),
+        }));
+        return {
+          bytes,
+          meta: {
+            sanitized,
+            levels: levels.map((l) => ({ level: l.level, size: l.size, roughness: r.roughness[l.level]!, samples: l.level === 0 ? 0 : r.samples[l.level]!, usedSamples: l.level === 0 ? 0 : l.usedSamples, relativeErrorEstimate: l.relativeErrorEstimate })),
+          },
+        };
+      });
+      const irradiance = await run.file<IrradianceMeta>(keys.irradianceFile, async () => {
+        const sh = await run.sh();
+        const cube = await run.irradianceCube();
+        const bytes = await encodeTimed(run, () => encodeCubeKtx2([cube], r.irradiance.cubeSize, r.output.irradianceFormat, r.output.supercompression, {
+          'lightkiln.content': 'irradiance E(n) (not E / pi)',
+          'lightkiln.source': r.irradiance.cubeSource,
+        }));
+        return { bytes, meta: { radiance: [...sh.radiance], irradiance: [...sh.irradiance] } };
+      });
+      const lut = r.dfg.enabled ? await run.file<{ channels: string[] }>(keys.lutFile, async () => {
+        const table = await run.dfg();
+        return { bytes: await encodeTimed(run, () => encodeDfgKtx2(table, r.output.supercompression, r.dfg.samples)), meta: { channels: [...table.channelNames] } };
+      }) : null;
+      const views = [];
+      for (const view of keys.views) {
+        views.push({ view, file: await run.file<Record<string, never>>(view.key, async () => {
+          const data = view.kind === 'mirror' ? (await run.levels())[0]!.data : await run.irradianceCube();
+          const image = cubeCross(data, view.kind === 'mirror' ? r.size : r.irradiance.cubeSize);
+          return { bytes: view.format === 'hdr' ? encodeHdr(image) : encodeExr(image, { pixelType: 'half', compression: 'zip' }), meta: {} };
+        }) });
+      }
+      if (options.signal?.aborted) throw aborted(options.signal.reason);
+      const artifacts: BakedArtifact[] = [];
+      const add = (kind: ArtifactKind, name: string, format: string, file: { bytes: Uint8Array; fromCache: boolean }): void => {
+        artifacts.push({ kind, name, path: outDir === undefined ? null : join(outDir, name), format, bytes: file.bytes, sha256: sha256Hex(file.bytes), fromCache: file.fromCache });
+      };
+      add('specular', `${r.name}.specular.ktx2`, `ktx2/${r.output.specularFormat}`, specular);
+      add('irradiance', `${r.name}.irradiance.ktx2`, `ktx2/${r.output.irradianceFormat}`, irradiance);
+      if (lut !== null) add('lut', `${r.name}.dfg.ktx2`, lut.meta.channels.length === 2 ? 'ktx2/rg16f' : 'ktx2/rgba16f', lut);
+      for (const { view, file } of views) add('view', view.name, view.format, file);
+      const manifestArtifacts: ManifestArtifact[] = artifacts.map((a) => ({ kind: a.kind as ManifestArtifact['kind'], path: a.name, format: a.format, byteLength: a.bytes.length, sha256: a.sha256 }));
+      run.timings.total = performance.now() - started;
+      const manifest: Manifest = {
+        schemaVersion: MANIFEST_SCHEMA_VERSION,
+        tool: { name: TOOL_NAME, version: TOOL_VERSION },
+        probe: r.name,
+        inputs: inputs.map((i) => ({ path: i.name, byteLength: i.bytes.length, sha256: sha256Hex(i.bytes) })),
+        recipe: r,
+        conventions: CONVENTIONS,
+        levels: specular.meta.levels,
+        sh: {
+          basis: 'real SH9, DESIGN.md order (Y00, Y1-1 y, Y10 z, Y11 x, Y2-2 xy, Y2-1 yz, Y20 3z^2-1, Y21 xz, Y22 x^2-y^2), no Condon-Shortley phase',
+          window: { kind: r.irradiance.shWindow, width: r.irradiance.shWindowWidth },
+          radiance: shTriples(irradiance.meta.radiance),
+          irradiance: shTriples(irradiance.meta.irradiance),
+        },
+        irradianceCube: { size: r.irradiance.cubeSize, source: r.irradiance.cubeSource, stores: 'E (irradiance), not E / pi' },
+        lut: lut === null ? null : { size: r.dfg.size, samples: r.dfg.samples, channels: lut.meta.channels },
+        artifacts: manifestArtifacts,
+        sanitized: specular.meta.sanitized,
+        timingsMs: Object.fromEntries(Object.entries(run.timings).map(([k, v]) => [k, Math.round(v * 10) / 10])),
+        cache: { ...cache.stats },
+      };
+      const manifestBytes = new TextEncoder().encode(`${JSON.stringify(manifest, null, 2)}\n`);
+      add('manifest', `${r.name}.probe.json`, 'json', { bytes: manifestBytes, fromCache: false });
+      if (outDir !== undefined) writeAtomically(outDir, artifacts);
+      if (this.#store !== null && this.#options.cacheMaxBytes !== undefined) await pruneStore(this.#store, this.#options.cacheMaxBytes);
+      return { artifacts, manifest, cache: { ...cache.stats } };
+    } catch (error) {
+      throw toLightkilnError(error);
+    }
+  }
+
+  /** Ends the baker; closes its pool when it made one (the shared pool stays for other bakers). */
+  async close(): Promise<void> {
+    if (this.#closed) return;
+    this.#closed = true;
+    if (this.#ownsPool) await this.#pool.close();
+  }
+}
+
+async function encodeTimed(run: BakeRun, fn: () => Uint8Array): Promise<Uint8Array> {
+  const t0 = performance.now();
+  const bytes = fn();
+  run.timings.encode = (run.timings.encode ?? 0) + performance.now() - t0;
+  return bytes;
+}
+
+function checkOutputFolder(outDir: string, probe: string): void {
+  try {
+    const st = lstatSync(outDir);
+    if (st.isSymbolicLink()) throw unsafePath(outDir, 'the output folder is a symbolic link');
+    if (!st.isDirectory()) throw new LightkilnError('INVALID_OPTION', `output folder ${outDir} exists and is not a folder`);
+  } catch (error) {
+    if (error instanceof LightkilnError) throw error;
+    if ((error as { code?: string }).code !== 'ENOENT') throw toLightkilnError(error, outDir);
+  }
+  if (!SAFE_NAME.test(probe)) throw unsafePath(probe, 'not a plain file name');
+}
+
+/** Writes every artifact to a temp file first, then renames all of them; on failure removes the temps. */
+function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): void {
+  mkdirSync(outDir, { recursive: true });
+  const temps: { tmp: string; final: string }[] = [];
+  try {
+    for (const a of artifacts) {
+      if (!SAFE_NAME.test(a.name)) throw unsafePath(a.name, 'not a plain file name');
+      const final = join(outDir, a.name);
+      try {
+        if (lstatSync(final).isSymbolicLink()) throw unsafePath(a.name, 'an existing symbolic link would be replaced');
+      } catch (error) {
+        if (error instanceof LightkilnError) throw error;
+      }
+      const tmp = join(outDir, `.${a.name}.tmp-${process.pid}-${randomBytes(4).toString('hex')}`);
+      writeFileSync(tmp, a.bytes);
+      temps.push({ tmp, final });
+    }
+    for (const { tmp, final } of temps) renameSync(tmp, final);
+  } catch (error) {
+    for (const { tmp } of temps) rmSync(tmp, { force: true });
+    throw toLightkilnError(error, outDir);
+  }
+}
+
+/** A baker bound to the shared pool and a cache. */
+export function createBaker(options: BakerOptions = {}): Baker {
+  return new Baker(options);
+}
+
+export { MemoryStore, FolderStore };

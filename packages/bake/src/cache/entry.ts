@@ -1,0 +1,116 @@
+/**
+ * Cache entry layout: "LKE1", UInt32 metadata length, metadata JSON, padding to 8, then typed arrays
+ * (UInt32 kind, UInt32 byte length, bytes, padding to 8), then the SHA-256 of everything before it.
+ * A mismatching checksum marks the entry corrupt: it is deleted and rebuilt.
+ */
+
+import { createHash } from 'node:crypto';
+import type { CacheStore } from './store.js';
+
+export type EntryArray = Float32Array | Float64Array | Uint8Array;
+
+export interface CacheEntry {
+  readonly meta: unknown;
+  readonly arrays: readonly EntryArray[];
+}
+
+const MAGIC = 0x31454b4c; // "LKE1" little-endian
+const KIND = { f32: 1, f64: 2, u8: 3 } as const;
+const pad8 = (n: number): number => (n + 7) & ~7;
+
+export function encodeEntry(entry: CacheEntry): Uint8Array {
+  const meta = new TextEncoder().encode(JSON.stringify(entry.meta));
+  let size = pad8(8 + meta.length);
+  for (const a of entry.arrays) size += 8 + pad8(a.byteLength);
+  const out = new Uint8Array(size + 32);
+  const view = new DataView(out.buffer);
+  view.setUint32(0, MAGIC, true);
+  view.setUint32(4, meta.length, true);
+  out.set(meta, 8);
+  let pos = pad8(8 + meta.length);
+  for (const a of entry.arrays) {
+    view.setUint32(pos, a instanceof Float32Array ? KIND.f32 : a instanceof Float64Array ? KIND.f64 : KIND.u8, true);
+    view.setUint32(pos + 4, a.byteLength, true);
+    out.set(new Uint8Array(a.buffer, a.byteOffset, a.byteLength), pos + 8);
+    pos += 8 + pad8(a.byteLength);
+  }
+  out.set(createHash('sha256').update(out.subarray(0, size)).digest(), size);
+  return out;
+}
+
+/** Decodes an entry, or returns null when it is damaged in any way. Arrays are fresh copies. */
+export function decodeEntry(bytes: Uint8Array): CacheEntry | null {
+  if (bytes.length < 48) return null;
+  const size = bytes.length - 32;
+  const digest = createHash('sha256').update(bytes.subarray(0, size)).digest();
+  for (let i = 0; i < 32; i++) if (digest[i] !== bytes[size + i]) return null;
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  if (view.getUint32(0, true) !== MAGIC) return null;
+  const metaLength = view.getUint32(4, true);
+  if (8 + metaLength > size) return null;
+  let meta: unknown;
+  try {
+    meta = JSON.parse(new TextDecoder().decode(bytes.subarray(8, 8 + metaLength)));
+  } catch {
+    return null;
+  }
+  const arrays: EntryArray[] = [];
+  let pos = pad8(8 + metaLength);
+  while (pos < size) {
+    const kind = view.getUint32(pos, true);
+    const length = view.getUint32(pos + 4, true);
+    if (pos + 8 + length > size) return null;
+    const copy = bytes.slice(pos + 8, pos + 8 + length);
+    if (kind === KIND.f32) arrays.push(new Float32Array(copy.buffer, 0, length / 4));
+    else if (kind === KIND.f64) arrays.push(new Float64Array(copy.buffer, 0, length / 8));
+    else if (kind === KIND.u8) arrays.push(copy);
+    else return null;
+    pos += 8 + pad8(length);
+  }
+  return { meta, arrays };
+}
+
+export interface CacheStats {
+  hits: number;
+  misses: number;
+  corrupt: number;
+  writes: number;
+}
+
+/** Reads and writes checked entries through a store (or does nothing when the cache is off). */
+export class EntryCache {
+  readonly store: CacheStore | null;
+  readonly stats: CacheStats = { hits: 0, misses: 0, corrupt: 0, writes: 0 };
+
+  constructor(store: CacheStore | null) {
+    this.store = store;
+  }
+
+  async has(key: string): Promise<boolean> {
+    return this.store !== null && (await this.store.has(key));
+  }
+
+  async get(key: string): Promise<CacheEntry | null> {
+    if (this.store === null) return null;
+    const bytes = await this.store.get(key);
+    if (bytes === undefined) {
+      this.stats.misses++;
+      return null;
+    }
+    const entry = decodeEntry(bytes);
+    if (entry === null) {
+      this.stats.corrupt++;
+      this.stats.misses++;
+      await this.store.delete(key);
+      return null;
+    }
+    this.stats.hits++;
+    return entry;
+  }
+
+  async put(key: string, entry: CacheEntry): Promise<void> {
+    if (this.store === null) return;
+    await this.store.put(key, encodeEntry(entry));
+    this.stats.writes++;
+  }
+}

@@ -1,0 +1,15 @@
+export { createBaker, Baker, STAGE_VERSIONS } from './bake.js';
+export type { BakerOptions, BakeRunOptions, BakeResult, BakedArtifact, ArtifactKind, BakePlan, PlanItem } from './bake.js';
+export { resolveRecipe, SAMPLE_PRESETS, SAFE_NAME } from './recipe.js';
+export type { Recipe, RecipeInput, ResolvedRecipe, SamplePreset, CubeFormat, ShWindow } from './recipe.js';
+export { LightkilnError, USER_ERROR_CODES, toLightkilnError } from './errors.js';
+export type { LightkilnErrorCode } from './errors.js';
+export { FolderStore, MemoryStore, pruneStore } from './cache/store.js';
+export type { CacheStore, CacheEntryInfo } from './cache/store.js';
+export { decodeEntry, encodeEntry } from './cache/entry.js';
+export type { CacheStats } from './cache/entry.js';
+export type { Manifest, ManifestLevel, ManifestArtifact } from './manifest.js';
+export { MANIFEST_SCHEMA_VERSION, TOOL_NAME, TOOL_VERSION } from './manifest.js';
+export type { BakeProgress } from './stages/context.js';
+export { cubeCross } from './stages/encode.js';
+export { closeSharedPools, getSharedPool, WorkerPool } from '@lightkiln/pool';

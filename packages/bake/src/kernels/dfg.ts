@@ -1,0 +1,46 @@
+/**
+ * Stage 6 kernel: the DFG lookup table. Column i <-> n.v = (i + 0.5) / W, row j <-> perceptual roughness
+ * (j + 0.5) / H; R = A, G = B (single scattering, height-correlated Smith, Schlick Fresnel; math/dfg.ts),
+ * optional E_avg(r) (midpoint rule over the row's own columns, Kulla & Conty 2017) and cloth albedo.
+ * Tiles are whole rows, so a row's half-vector set is built once per row.
+ */
+
+import { alphaFromPerceptualRoughness, fillGgxHalfVectorSet, integrateClothAlbedo, integrateDfg } from '@lightkiln/math';
+import type { SharedBuffers } from '@lightkiln/pool';
+
+export interface DfgParams {
+  readonly width: number;
+  readonly height: number;
+  readonly samples: number;
+  /** Output channels: 2 (A, B) or 4 (A, B, E_avg or 0, cloth or 0). */
+  readonly channels: number;
+  readonly multiscatter: boolean;
+  readonly cloth: boolean;
+}
+
+/** buffers.dst: float32 table, rows of `width` texels of `channels`; items are texels. */
+export function integrateDfgTable(buffers: SharedBuffers, begin: number, end: number, params: DfgParams): void {
+  const dst = buffers.dst as Float32Array;
+  const W = params.width;
+  const C = params.channels;
+  const set = new Float64Array(params.samples * 3);
+  const ab = new Float64Array(2);
+  for (let row = (begin / W) | 0; row * W < end; row++) {
+    const alpha = alphaFromPerceptualRoughness((row + 0.5) / params.height);
+    fillGgxHalfVectorSet(set, alpha, params.samples);
+    let eavg = 0;
+    for (let i = 0; i < W; i++) {
+      const mu = (i + 0.5) / W;
+      integrateDfg(ab, 0, mu, alpha, set, params.samples);
+      const o = (row * W + i) * C;
+      dst[o] = ab[0]!;
+      dst[o + 1] = ab[1]!;
+      eavg += (ab[0]! + ab[1]!) * mu;
+      if (C === 4) dst[o + 3] = params.cloth ? integrateClothAlbedo(mu, alpha, params.samples) : 0;
+    }
+    if (C === 4) {
+      const value = params.multiscatter ? (2 * eavg) / W : 0;
+      for (let i = 0; i < W; i++) dst[(row * W + i) * C + 2] = value;
+    }
+  }
+}

@@ -1,0 +1,63 @@
+/** The `<probe>.probe.json` manifest (DESIGN.md "Files"): everything a consumer needs without the code. */
+
+import type { ResolvedRecipe } from './recipe.js';
+import type { SanitizeCounts } from './stages/source.js';
+
+export const MANIFEST_SCHEMA_VERSION = 1;
+export const TOOL_NAME = 'lightkiln';
+export const TOOL_VERSION = '0.1.0';
+
+export interface ManifestLevel {
+  readonly level: number;
+  readonly size: number;
+  readonly roughness: number;
+  /** Samples per texel requested, and those with n.l > 0 actually used (source texels for reference). */
+  readonly samples: number;
+  readonly usedSamples: number;
+  /** Split-half estimate of the relative RMS error in BT.709 luminance (0 = exact at this level). */
+  readonly relativeErrorEstimate: number;
+}
+
+export interface ManifestArtifact {
+  readonly kind: 'specular' | 'irradiance' | 'lut' | 'view';
+  readonly path: string;
+  readonly format: string;
+  readonly byteLength: number;
+  readonly sha256: string;
+}
+
+export interface Manifest {
+  readonly schemaVersion: number;
+  readonly tool: { readonly name: string; readonly version: string };
+  readonly probe: string;
+  readonly inputs: readonly { readonly path: string; readonly byteLength: number; readonly sha256: string }[];
+  readonly recipe: Omit<ResolvedRecipe, 'input'> & { readonly input: { readonly path: string | null; readonly name: string; readonly layout: string; readonly faces: readonly string[] | null } };
+  readonly conventions: Readonly<Record<string, string>>;
+  readonly levels: readonly ManifestLevel[];
+  readonly sh: {
+    readonly basis: string;
+    readonly window: { readonly kind: string; readonly width: number };
+    readonly radiance: readonly (readonly [number, number, number])[];
+    readonly irradiance: readonly (readonly [number, number, number])[];
+  };
+  readonly irradianceCube: { readonly size: number; readonly source: string; readonly stores: string };
+  readonly lut: { readonly size: number; readonly samples: number; readonly channels: readonly string[] } | null;
+  readonly artifacts: readonly ManifestArtifact[];
+  readonly sanitized: SanitizeCounts;
+  readonly timingsMs: Readonly<Record<string, number>>;
+  readonly cache: { readonly hits: number; readonly misses: number; readonly corrupt: number; readonly writes: number };
+}
+
+export const CONVENTIONS: Readonly<Record<string, string>> = {
+  frame: 'right-handed, +Y up, -Z forward',
+  cubeFaces: '+X, -X, +Y, -Y, +Z, -Z; OpenGL/Vulkan selection table; row 0 of a face is t = 0',
+  roughness: 'perceptual roughness r; GGX alpha = r^2',
+  specular: 'split-sum prefiltered radiance LD(n) with n = v = r, GGX D, NoL weights',
+  irradiance: 'E(n) = integral L(l) max(n.l, 0) dl (Lambertian radiance = albedo * E / pi)',
+  rotation: 'about +Y, right-handed; the cube at d shows the source at R(-rotationDeg) d',
+};
+
+/** SH coefficients as 9 [r, g, b] triples in DESIGN.md order. */
+export function shTriples(coeffs: ArrayLike<number>): [number, number, number][] {
+  return Array.from({ length: 9 }, (_, k) => [coeffs[3 * k]!, coeffs[3 * k + 1]!, coeffs[3 * k + 2]!] as [number, number, number]);
+}

@@ -1,0 +1,263 @@
+/**
+ * The bake recipe: what to bake and how. `Recipe` (every field optional but the input) goes through
+ * resolveRecipe() to give `ResolvedRecipe` (every field filled in), validated by a zod schema whose
+ * errors name the field path and the rule.
+ */
+
+import { z } from 'zod';
+import { invalidRecipe } from './errors.js';
+
+export type SamplePreset = 'draft' | 'default' | 'high';
+export type CubeFormat = 'rgba16f' | 'rgba32f' | 'rgb9e5' | 'b10g11r11';
+export type ShWindow = 'none' | 'hann' | 'lanczos';
+
+/**
+ * Per-level sample counts of the presets, linear in roughness from the first value (r -> 0) to the second
+ * (r = 1), rounded to a multiple of 8. 'default' keeps every level within 1% relative RMSE of the
+ * reference convolution on the analytic sky of packages/bake/test/accuracy.test.ts (0.64% worst, size 64).
+ */
+export const SAMPLE_PRESETS: Readonly<Record<SamplePreset, readonly [number, number]>> = {
+  draft: [64, 256],
+  default: [256, 1024],
+  high: [1024, 4096],
+};
+
+export interface RecipeInput {
+  /** A file to read (format sniffed from its bytes), or bytes already in memory. */
+  readonly path?: string;
+  readonly bytes?: Uint8Array;
+  /** Name used in messages and the manifest when bytes are given. Default "input". */
+  readonly name?: string;
+  /** How to read the image: 'auto' (default) treats .hdr/.exr/.pfm as equirectangular, .ktx2 as a cubemap. */
+  readonly layout?: 'auto' | 'equirect' | 'cube';
+  /** Six face files +X, -X, +Y, -Y, +Z, -Z instead of one input (each a square image). */
+  readonly faces?: readonly string[];
+}
+
+export interface Recipe {
+  readonly input: RecipeInput;
+  /** Probe name: the base of every artifact name. Default: the input file name without extension. */
+  readonly name?: string;
+  /** Rotation about +Y in degrees, right-handed (positive turns +Z towards +X). Default 0. */
+  readonly rotationDeg?: number;
+  /** Level-0 face size, a power of two in 4..4096. Default 256. Cost grows with size^2. */
+  readonly size?: number;
+  /** Radiance levels; default the full chain log2(size) + 1 (down to 1 x 1). */
+  readonly levels?: number;
+  /** Perceptual roughness per level, in [0, 1], first 0; default m / (levels - 1). */
+  readonly roughness?: readonly number[];
+  /** Samples per texel: a preset, one number for every level, or one per level. Default 'default'. */
+  readonly samples?: SamplePreset | number | readonly number[];
+  /** Filtered importance sampling (source level per sample from its pdf). Default true. */
+  readonly filtered?: boolean;
+  /**
+   * Level-of-detail bias of filtered importance sampling, in levels (Krivanek & Colbert 2008 use 1).
+   * Default 0.5: at the default preset, bias 1 blurred levels by 0.6-1.1% RMSE against the reference
+   * and 0.5 by 0.3-0.6% (accuracy test sky, size 64); lower bias means more noise from small bright sources.
+   */
+  readonly lodBias?: number;
+  /** Firefly clamp: sample luminance above this is scaled down to it. Default 0 (off). Biased when on. */
+  readonly clampLuminance?: number;
+  /** Per-level Cranley-Patterson rotation of the Hammersley set (decorrelates levels). Default false. */
+  readonly rotateSequence?: boolean;
+  /** 'sampled' (default) or 'reference': brute-force convolution over every source texel (small sizes only). */
+  readonly quality?: 'sampled' | 'reference';
+  readonly irradiance?: {
+    /** SH9 ringing window (Sloan 2008) applied to the manifest's coefficients and SH-built cube. Default 'none'. */
+    readonly shWindow?: ShWindow;
+    /** Band at which the window reaches zero. Default 3. */
+    readonly shWindowWidth?: number;
+    /** Irradiance cube face size, power of two 1..256. Default 32. */
+    readonly cubeSize?: number;
+    /** 'convolution' (default, exact cosine convolution) or 'sh9' (reconstructed from the coefficients). */
+    readonly cubeSource?: 'convolution' | 'sh9';
+  };
+  readonly dfg?: {
+    /** Bake the DFG table with the probe. Default true. */
+    readonly enabled?: boolean;
+    /** Table size (square), 8..1024. Default 128. */
+    readonly size?: number;
+    /** Samples per texel, 16..65536. Default 1024. */
+    readonly samples?: number;
+    /** Add E_avg(r) as a third channel (multiple-scattering compensation). Default false. */
+    readonly multiscatter?: boolean;
+    /** Add the cloth (Charlie sheen) albedo as a fourth channel. Default false. */
+    readonly cloth?: boolean;
+  };
+  readonly output?: {
+    readonly specularFormat?: CubeFormat;
+    readonly irradianceFormat?: CubeFormat;
+    /** KTX 2.0 supercompression. Default 'none'. */
+    readonly supercompression?: 'none' | 'zlib';
+    /** Extra inspection files of level 0 and the irradiance cube (horizontal cross). Default none. */
+    readonly views?: readonly ('hdr' | 'exr')[];
+  };
+  readonly sanitize?: {
+    /** NaN and infinite pixels: 'repair' (NaN -> 0, +Inf -> maxRadiance) or 'reject'. Default 'repair'. */
+    readonly nonFinite?: 'repair' | 'reject';
+    /** Negative channels: 'clamp' to 0 or 'reject'. Default 'clamp'. */
+    readonly negative?: 'clamp' | 'reject';
+    /** Largest radiance kept; larger values are clamped. Default 65504 (binary16 max). */
+    readonly maxRadiance?: number;
+  };
+  readonly limits?: {
+    /** Largest input file in bytes. Default 1 GiB. */
+    readonly maxInputBytes?: number;
+    /** Largest input image in pixels. Default 67 108 864. */
+    readonly maxInputPixels?: number;
+    /** Largest samples per texel of any level. Default 65 536. */
+    readonly maxSamples?: number;
+    /** Largest output texels times samples (the work estimate) of one bake. Default 2e11. */
+    readonly maxWork?: number;
+  };
+}
+
+export interface ResolvedRecipe {
+  readonly input: { readonly path: string | null; readonly name: string; readonly layout: 'auto' | 'equirect' | 'cube'; readonly faces: readonly string[] | null };
+  readonly name: string;
+  readonly rotationDeg: number;
+  readonly size: number;
+  readonly levels: number;
+  readonly roughness: readonly number[];
+  readonly samples: readonly number[];
+  readonly samplePreset: SamplePreset | 'custom';
+  readonly filtered: boolean;
+  readonly lodBias: number;
+  readonly clampLuminance: number;
+  readonly rotateSequence: boolean;
+  readonly quality: 'sampled' | 'reference';
+  readonly irradiance: { readonly shWindow: ShWindow; readonly shWindowWidth: number; readonly cubeSize: number; readonly cubeSource: 'convolution' | 'sh9' };
+  readonly dfg: { readonly enabled: boolean; readonly size: number; readonly samples: number; readonly multiscatter: boolean; readonly cloth: boolean };
+  readonly output: { readonly specularFormat: CubeFormat; readonly irradianceFormat: CubeFormat; readonly supercompression: 'none' | 'zlib'; readonly views: readonly ('hdr' | 'exr')[] };
+  readonly sanitize: { readonly nonFinite: 'repair' | 'reject'; readonly negative: 'clamp' | 'reject'; readonly maxRadiance: number };
+  readonly limits: { readonly maxInputBytes: number; readonly maxInputPixels: number; readonly maxSamples: number; readonly maxWork: number };
+}
+
+const isPow2 = (n: number): boolean => Number.isInteger(n) && n > 0 && (n & (n - 1)) === 0;
+/** Artifact base names: letters, digits, '.', '_' and '-', not starting with '.', at most 100 characters. */
+export const SAFE_NAME: RegExp = /^[A-Za-z0-9_][A-Za-z0-9._-]{0,99}$/;
+const cubeFormat = z.enum(['rgba16f', 'rgba32f', 'rgb9e5', 'b10g11r11']);
+
+const schema = z.object({
+  input: z.object({
+    path: z.string().min(1).optional(),
+    bytes: z.instanceof(Uint8Array).optional(),
+    name: z.string().min(1).max(200).optional(),
+    layout: z.enum(['auto', 'equirect', 'cube']).default('auto'),
+    faces: z.array(z.string().min(1)).length(6, 'must list exactly six face files (+X, -X, +Y, -Y, +Z, -Z)').optional(),
+  }).strict().refine((i) => [i.path, i.bytes, i.faces].filter((v) => v !== undefined).length === 1, 'give exactly one of path, bytes or faces'),
+  name: z.string().regex(SAFE_NAME, 'must be a plain file name (letters, digits, . _ -, not starting with .)').optional(),
+  rotationDeg: z.number().finite().min(-3600).max(3600).default(0),
+  size: z.number().int().min(4).max(4096).refine(isPow2, 'must be a power of two').default(256),
+  levels: z.number().int().min(1).max(13).optional(),
+  roughness: z.array(z.number().min(0).max(1)).min(1).optional(),
+  samples: z.union([z.enum(['draft', 'default', 'high']), z.number().int().min(1), z.array(z.number().int().min(1)).min(1)]).default('default'),
+  filtered: z.boolean().default(true),
+  lodBias: z.number().min(-4).max(8).default(0.5),
+  clampLuminance: z.number().min(0).finite().default(0),
+  rotateSequence: z.boolean().default(false),
+  quality: z.enum(['sampled', 'reference']).default('sampled'),
+  irradiance: z.object({
+    shWindow: z.enum(['none', 'hann', 'lanczos']).default('none'),
+    shWindowWidth: z.number().min(1).max(16).default(3),
+    cubeSize: z.number().int().min(1).max(256).refine(isPow2, 'must be a power of two').default(32),
+    cubeSource: z.enum(['convolution', 'sh9']).default('convolution'),
+  }).strict().default({ shWindow: 'none', shWindowWidth: 3, cubeSize: 32, cubeSource: 'convolution' }),
+  dfg: z.object({
+    enabled: z.boolean().default(true),
+    size: z.number().int().min(8).max(1024).default(128),
+    samples: z.number().int().min(16).max(65536).default(1024),
+    multiscatter: z.boolean().default(false),
+    cloth: z.boolean().default(false),
+  }).strict().default({ enabled: true, size: 128, samples: 1024, multiscatter: false, cloth: false }),
+  output: z.object({
+    specularFormat: cubeFormat.default('rgba16f'),
+    irradianceFormat: cubeFormat.default('rgba16f'),
+    supercompression: z.enum(['none', 'zlib']).default('none'),
+    views: z.array(z.enum(['hdr', 'exr'])).default([]),
+  }).strict().default({ specularFormat: 'rgba16f', irradianceFormat: 'rgba16f', supercompression: 'none', views: [] }),
+  sanitize: z.object({
+    nonFinite: z.enum(['repair', 'reject']).default('repair'),
+    negative: z.enum(['clamp', 'reject']).default('clamp'),
+    maxRadiance: z.number().positive().finite().default(65504),
+  }).strict().default({ nonFinite: 'repair', negative: 'clamp', maxRadiance: 65504 }),
+  limits: z.object({
+    maxInputBytes: z.number().int().positive().default(1024 ** 3),
+    maxInputPixels: z.number().int().positive().default(8192 * 8192),
+    maxSamples: z.number().int().positive().max(1 << 20).default(65536),
+    maxWork: z.number().positive().default(2e11),
+  }).strict().default({ maxInputBytes: 1024 ** 3, maxInputPixels: 8192 * 8192, maxSamples: 65536, maxWork: 2e11 }),
+}).strict();
+
+function formatIssues(error: z.ZodError): string {
+  return error.issues.map((issue) => `${issue.path.length > 0 ? issue.path.join('.') : '(recipe)'}: ${issue.message}`).join('; ');
+}
+
+function baseName(path: string): string {
+  const file = path.split(/[\\/]/).pop() ?? path;
+  const dot = file.lastIndexOf('.');
+  return (dot > 0 ? file.slice(0, dot) : file).replace(/[^A-Za-z0-9._-]/g, '_').replace(/^[.]+/, '') || 'probe';
+}
+
+/** Validates a recipe and fills in every default; throws LightkilnError INVALID_RECIPE naming each bad field. */
+export function resolveRecipe(recipe: Recipe): ResolvedRecipe {
+  const parsed = schema.safeParse(recipe);
+  if (!parsed.success) throw invalidRecipe(formatIssues(parsed.error));
+  const r = parsed.data;
+  const maxLevels = Math.log2(r.size) + 1;
+  const levels = r.levels ?? r.roughness?.length ?? maxLevels;
+  if (levels > maxLevels) throw invalidRecipe(`levels: at most ${maxLevels} levels for size ${r.size} (down to 1 x 1), got ${levels}`);
+  let roughness: number[];
+  if (r.roughness !== undefined) {
+    if (r.roughness.length !== levels) throw invalidRecipe(`roughness: must list one value per level (${levels}), got ${r.roughness.length}`);
+    if (r.roughness[0] !== 0) throw invalidRecipe('roughness: level 0 is the mirror level and must be 0');
+    for (let i = 1; i < levels; i++) {
+      if (r.roughness[i]! <= r.roughness[i - 1]!) throw invalidRecipe(`roughness: values must increase (roughness.${i} = ${r.roughness[i]})`);
+    }
+    roughness = [...r.roughness];
+  } else {
+    roughness = Array.from({ length: levels }, (_, m) => (levels === 1 ? 0 : m / (levels - 1)));
+  }
+  let samples: number[];
+  let samplePreset: SamplePreset | 'custom' = 'custom';
+  if (typeof r.samples === 'string') {
+    samplePreset = r.samples;
+    const [lo, hi] = SAMPLE_PRESETS[r.samples];
+    samples = roughness.map((rough) => Math.max(8, Math.round((lo + (hi - lo) * rough) / 8) * 8));
+  } else if (typeof r.samples === 'number') {
+    samples = roughness.map(() => r.samples as number);
+  } else {
+    if (r.samples.length !== levels) throw invalidRecipe(`samples: must list one count per level (${levels}), got ${r.samples.length}`);
+    samples = [...r.samples];
+  }
+  samples.forEach((s, i) => {
+    if (s > r.limits.maxSamples) throw invalidRecipe(`samples.${i}: ${s} exceeds limits.maxSamples (${r.limits.maxSamples})`);
+  });
+  let work = 0;
+  for (let m = 1; m < levels; m++) work += 6 * Math.max(1, r.size >> m) ** 2 * (r.quality === 'reference' ? 6 * r.size * r.size : samples[m]!);
+  work += r.dfg.enabled ? r.dfg.size * r.dfg.size * r.dfg.samples : 0;
+  if (work > r.limits.maxWork) throw invalidRecipe(`the bake needs about ${work.toExponential(2)} sample evaluations, over limits.maxWork (${r.limits.maxWork.toExponential(2)}); lower size, samples or use quality 'sampled'`);
+  const inputName = r.input.name ?? (r.input.path !== undefined ? r.input.path : r.input.faces !== undefined ? r.input.faces[0]! : 'input');
+  const name = r.name ?? (r.input.path !== undefined ? baseName(r.input.path) : r.input.faces !== undefined ? baseName(r.input.faces[0]!) : baseName(inputName));
+  if (!SAFE_NAME.test(name)) throw invalidRecipe(`name: "${name}" must be a plain file name`);
+  return {
+    input: { path: r.input.path ?? null, name: inputName, layout: r.input.layout, faces: r.input.faces ?? null },
+    name,
+    rotationDeg: r.rotationDeg,
+    size: r.size,
+    levels,
+    roughness,
+    samples,
+    samplePreset,
+    filtered: r.filtered,
+    lodBias: r.lodBias,
+    clampLuminance: r.clampLuminance,
+    rotateSequence: r.rotateSequence,
+    quality: r.quality,
+    irradiance: r.irradiance,
+    dfg: r.dfg,
+    output: r.output,
+    sanitize: r.sanitize,
+    limits: r.limits,
+  };
+}

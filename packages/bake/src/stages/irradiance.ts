@@ -1,0 +1,86 @@
+/**
+ * Stage 5: diffuse irradiance. SH9 projection of the level-0 cube with exact texel solid angles
+ * (Ramamoorthi & Hanrahan 2001), optional ringing window (Sloan 2008), and an irradiance cube holding E
+ * (not E / pi) by direct cosine convolution of a pyramid level or reconstructed from the SH9.
+ */
+
+import {
+  accumulateSh9, applySh9BandWeights, convolveSh9Lambert, cubeFaceSolidAngleTable, cubeTexelCenterDirection, evalSh9Rgb, sh9WindowWeights,
+  type Sh9WindowKind,
+} from '@lightkiln/math';
+import { sharedFloat32 } from '@lightkiln/pool';
+import type { ConvolveParams } from '../kernels/convolve.js';
+import { jobOptions, kernel, type StageContext } from './context.js';
+import { levelView, type Pyramid } from './pyramid.js';
+import { sourceDirections } from './specular.js';
+
+export interface ShResult {
+  /** Radiance coefficients L_lm, 27 numbers (9 x RGB), window applied. */
+  readonly radiance: Float64Array;
+  /** Irradiance coefficients A_l L_lm. */
+  readonly irradiance: Float64Array;
+}
+
+/** Projects a cube level onto SH9: L_lm = sum_texels L Y_lm dOmega (exact texel solid angles). */
+export function projectSh9(pyramid: Pyramid, level: number, window: Sh9WindowKind, windowWidth: number): ShResult {
+  const n = pyramid.sizes[level]!;
+  const data = levelView(pyramid, level);
+  const solid = cubeFaceSolidAngleTable(n);
+  const radiance = new Float64Array(27);
+  const d = new Float64Array(3);
+  for (let f = 0; f < 6; f++) {
+    for (let y = 0; y < n; y++) {
+      for (let x = 0; x < n; x++) {
+        const t = ((f * n + y) * n + x) * 3;
+        cubeTexelCenterDirection(d, 0, f, x, y, n);
+        accumulateSh9(radiance, d[0]!, d[1]!, d[2]!, data[t]!, data[t + 1]!, data[t + 2]!, solid[y * n + x]!);
+      }
+    }
+  }
+  const weights = new Float64Array(3);
+  sh9WindowWeights(weights, window, windowWidth);
+  applySh9BandWeights(radiance, weights);
+  const irradiance = new Float64Array(27);
+  convolveSh9Lambert(irradiance, radiance);
+  return { radiance, irradiance };
+}
+
+/** The source level used for the direct convolution: the largest with faces of at most 64 texels. */
+export function convolutionSourceLevel(pyramid: Pyramid): number {
+  let level = 0;
+  while (pyramid.sizes[level]! > 64) level++;
+  return level;
+}
+
+export async function irradianceCube(pyramid: Pyramid, size: number, source: 'convolution' | 'sh9', sh: ShResult, ctx: StageContext): Promise<Float32Array> {
+  const texels = 6 * size * size;
+  if (source === 'sh9') {
+    const out = new Float32Array(texels * 3);
+    const d = new Float64Array(3);
+    const e = new Float64Array(3);
+    for (let f = 0; f < 6; f++) {
+      for (let y = 0; y < size; y++) {
+        for (let x = 0; x < size; x++) {
+          cubeTexelCenterDirection(d, 0, f, x, y, size);
+          evalSh9Rgb(e, 0, sh.irradiance, d[0]!, d[1]!, d[2]!);
+          const t = ((f * size + y) * size + x) * 3;
+          out[t] = e[0]!; out[t + 1] = e[1]!; out[t + 2] = e[2]!;
+        }
+      }
+    }
+    return out;
+  }
+  const level = convolutionSourceLevel(pyramid);
+  const n = pyramid.sizes[level]!;
+  const dirs = sourceDirections(pyramid, level);
+  const dst = sharedFloat32(texels * 3);
+  const params: ConvolveParams = { srcOffset: pyramid.offsets[level]!, srcTexels: 6 * n * n, size, levelBegin: 0, dstOffset: 0, alpha: 0 };
+  await ctx.pool.run({
+    kernel: kernel('convolveIrradiance'),
+    buffers: { pyramid: pyramid.data, srcDirs: dirs, dst },
+    segments: [0, 1, 2, 3, 4, 5].map((f) => ({ begin: f * size * size, end: (f + 1) * size * size, costPerItem: 6 * n * n, rowLength: size, label: `irradiance face ${f}` })),
+    params,
+    ...jobOptions(ctx, 'irradiance'),
+  });
+  return dst.slice();
+}

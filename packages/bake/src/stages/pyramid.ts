@@ -1,0 +1,81 @@
+/**
+ * Stages 2 and 3: area-correct resampling of the source onto the level-0 cube (rotation applied), then the
+ * solid-angle-weighted 2 x 2 reduction down to 1 x 1 faces. All levels live in one shared buffer.
+ */
+
+import { sharedFloat32, toShared } from '@lightkiln/pool';
+import type { ResampleParams } from '../kernels/resample.js';
+import type { ReduceParams } from '../kernels/reduce.js';
+import { jobOptions, kernel, type StageContext } from './context.js';
+import type { SourceImage } from './source.js';
+
+export interface Pyramid {
+  /** Face size of each level, level 0 first (size, size/2, ..., 1). */
+  readonly sizes: readonly number[];
+  /** Float offset of each level in data. */
+  readonly offsets: readonly number[];
+  /** RGB float32 texels of every level (shared memory). */
+  readonly data: Float32Array;
+}
+
+export function pyramidLayout(size: number): { sizes: number[]; offsets: number[]; length: number } {
+  const sizes: number[] = [];
+  const offsets: number[] = [];
+  let length = 0;
+  for (let n = size; n >= 1; n >>= 1) {
+    sizes.push(n);
+    offsets.push(length);
+    length += 6 * n * n * 3;
+  }
+  return { sizes, offsets, length };
+}
+
+export function levelView(pyramid: Pyramid, level: number): Float32Array {
+  const n = pyramid.sizes[level]!;
+  return pyramid.data.subarray(pyramid.offsets[level]!, pyramid.offsets[level]! + 6 * n * n * 3);
+}
+
+/**
+ * Supersamples per axis: enough that the spacing of the points is below the source's pixel spacing
+ * (cube texel at the face centre spans 2/size of tangent space; an equirect pixel 2 pi / width radians).
+ */
+export function supersampleFactor(source: SourceImage, size: number): number {
+  const texelAngle = 2 / size;
+  const srcAngle = source.kind === 'equirect' ? (2 * Math.PI) / source.width : 2 / source.size;
+  return Math.max(1, Math.min(8, Math.ceil((1.5 * texelAngle) / srcAngle)));
+}
+
+export async function buildPyramid(source: SourceImage, size: number, rotationDeg: number, ctx: StageContext): Promise<Pyramid> {
+  const layout = pyramidLayout(size);
+  const data = sharedFloat32(layout.length);
+  const level0 = data.subarray(0, 6 * size * size * 3);
+  const angle = (rotationDeg * Math.PI) / 180;
+  const params: ResampleParams = {
+    size,
+    supersample: supersampleFactor(source, size),
+    rotCos: Math.cos(angle),
+    rotSin: Math.sin(angle),
+    srcWidth: source.kind === 'equirect' ? source.width : source.size,
+    srcHeight: source.kind === 'equirect' ? source.height : source.size,
+  };
+  const cost = params.supersample * params.supersample * 4;
+  await ctx.pool.run({
+    kernel: kernel(source.kind === 'equirect' ? 'resampleEquirect' : 'resampleCube'),
+    buffers: { src: toShared(source.data), dst: level0 },
+    segments: [0, 1, 2, 3, 4, 5].map((f) => ({ begin: f * size * size, end: (f + 1) * size * size, costPerItem: cost, rowLength: size, label: `resample face ${f}` })),
+    params,
+    ...jobOptions(ctx, 'resample'),
+  });
+  for (let l = 1; l < layout.sizes.length; l++) {
+    const n = layout.sizes[l]!;
+    const reduce: ReduceParams = { size: n, srcOffset: layout.offsets[l - 1]!, dstOffset: layout.offsets[l]! };
+    await ctx.pool.run({
+      kernel: kernel('reducePyramid'),
+      buffers: { pyramid: data },
+      segments: [{ begin: 0, end: 6 * n * n, costPerItem: 40, rowLength: n, label: `pyramid level ${l}` }],
+      params: reduce,
+      ...jobOptions(ctx, 'pyramid'),
+    });
+  }
+  return { sizes: layout.sizes, offsets: layout.offsets, data };
+}

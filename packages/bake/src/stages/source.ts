@@ -1,0 +1,109 @@
+/**
+ * Stage 1: decode and sanitise. Produces either an equirectangular RGB image or an RGB cube, with the
+ * counts of repaired pixels for the manifest. Policy (recipe.sanitize): NaN -> 0, +Inf and values above
+ * maxRadiance -> maxRadiance, -Inf and negatives -> 0, or a typed error when the recipe says 'reject'.
+ */
+
+import { CodecError, decodeImage, decodeKtx2, sniffFormat, type DecodedImage } from '@lightkiln/codecs';
+import { LightkilnError, toLightkilnError } from '../errors.js';
+import type { ResolvedRecipe } from '../recipe.js';
+
+export interface SanitizeCounts {
+  nan: number;
+  infinite: number;
+  negative: number;
+  clampedHigh: number;
+}
+
+export type SourceImage =
+  | { readonly kind: 'equirect'; readonly width: number; readonly height: number; readonly data: Float32Array; readonly sanitized: SanitizeCounts }
+  | { readonly kind: 'cube'; readonly size: number; readonly data: Float32Array; readonly sanitized: SanitizeCounts };
+
+export interface InputFile {
+  readonly name: string;
+  readonly bytes: Uint8Array;
+}
+
+function toRgb(image: DecodedImage): Float32Array {
+  const n = image.width * image.height;
+  if (image.channels === 3) return image.data;
+  const out = new Float32Array(n * 3);
+  const c = image.channels;
+  for (let p = 0; p < n; p++) {
+    out[p * 3] = image.data[p * c]!;
+    out[p * 3 + 1] = image.data[p * c + (c === 1 ? 0 : 1)]!;
+    out[p * 3 + 2] = image.data[p * c + (c === 1 ? 0 : 2)]!;
+  }
+  return out;
+}
+
+/** Repairs or rejects non-finite, negative and too-bright values in place. */
+export function sanitize(data: Float32Array, recipe: ResolvedRecipe, file: string): SanitizeCounts {
+  const counts: SanitizeCounts = { nan: 0, infinite: 0, negative: 0, clampedHigh: 0 };
+  const maxR = recipe.sanitize.maxRadiance;
+  for (let i = 0; i < data.length; i++) {
+    const v = data[i]!;
+    if (v !== v) { counts.nan++; data[i] = 0; }
+    else if (v === Infinity) { counts.infinite++; data[i] = maxR; }
+    else if (v === -Infinity) { counts.infinite++; data[i] = 0; }
+    else if (v < 0) { counts.negative++; data[i] = 0; }
+    else if (v > maxR) { counts.clampedHigh++; data[i] = maxR; }
+  }
+  if (recipe.sanitize.nonFinite === 'reject' && counts.nan + counts.infinite > 0) {
+    throw new LightkilnError('INVALID_INPUT', `${file}: ${counts.nan} NaN and ${counts.infinite} infinite values (sanitize.nonFinite is 'reject')`, { file });
+  }
+  if (recipe.sanitize.negative === 'reject' && counts.negative > 0) {
+    throw new LightkilnError('INVALID_INPUT', `${file}: ${counts.negative} negative values (sanitize.negative is 'reject')`, { file });
+  }
+  return counts;
+}
+
+const limitsFor = (recipe: ResolvedRecipe): { maxPixels: number; maxBytes: number } => ({ maxPixels: recipe.limits.maxInputPixels, maxBytes: recipe.limits.maxInputBytes });
+
+/** Decodes the input(s) of a recipe into a sanitised source. */
+export function decodeSource(recipe: ResolvedRecipe, inputs: readonly InputFile[]): SourceImage {
+  try {
+    if (inputs.length === 6) return decodeFaces(recipe, inputs);
+    const input = inputs[0]!;
+    const format = sniffFormat(input.bytes);
+    if (format === 'ktx2' || recipe.input.layout === 'cube') {
+      if (format !== 'ktx2') throw new LightkilnError('INVALID_INPUT', `${input.name}: layout 'cube' needs a KTX 2.0 cubemap (six faces go in input.faces)`, { file: input.name });
+      const ktx = decodeKtx2(input.bytes, { file: input.name, limits: limitsFor(recipe) });
+      if (ktx.faceCount !== 6) throw new LightkilnError('INVALID_INPUT', `${input.name}: KTX 2.0 input must be a cubemap (faceCount 6), got ${ktx.faceCount}`, { file: input.name });
+      if (ktx.channels < 3) throw new LightkilnError('INVALID_INPUT', `${input.name}: KTX 2.0 input must have RGB channels`, { file: input.name });
+      const level = ktx.levels[0]!;
+      const n = ktx.width * ktx.width * 6;
+      const data = new Float32Array(n * 3);
+      for (let t = 0; t < n; t++) for (let c = 0; c < 3; c++) data[t * 3 + c] = level.data[t * ktx.channels + c]!;
+      return { kind: 'cube', size: ktx.width, data, sanitized: sanitize(data, recipe, input.name) };
+    }
+    const image = decodeImage(input.bytes, { file: input.name, limits: limitsFor(recipe) });
+    if (image.width < 4 || image.height < 2) throw new LightkilnError('INVALID_INPUT', `${input.name}: equirectangular image of ${image.width} x ${image.height} is too small (at least 4 x 2)`, { file: input.name });
+    const data = toRgb(image);
+    return { kind: 'equirect', width: image.width, height: image.height, data, sanitized: sanitize(data, recipe, input.name) };
+  } catch (error) {
+    if (error instanceof CodecError || !(error instanceof LightkilnError)) throw toLightkilnError(error);
+    throw error;
+  }
+}
+
+function decodeFaces(recipe: ResolvedRecipe, inputs: readonly InputFile[]): SourceImage {
+  let size = 0;
+  let data: Float32Array | null = null;
+  const total: SanitizeCounts = { nan: 0, infinite: 0, negative: 0, clampedHigh: 0 };
+  inputs.forEach((input, face) => {
+    const image = decodeImage(input.bytes, { file: input.name, limits: limitsFor(recipe) });
+    if (image.width !== image.height) throw new LightkilnError('INVALID_INPUT', `${input.name}: cube face must be square, got ${image.width} x ${image.height}`, { file: input.name });
+    if (face === 0) {
+      size = image.width;
+      data = new Float32Array(size * size * 6 * 3);
+    } else if (image.width !== size) {
+      throw new LightkilnError('INVALID_INPUT', `${input.name}: face size ${image.width} differs from the first face (${size})`, { file: input.name });
+    }
+    const rgb = toRgb(image);
+    const counts = sanitize(rgb, recipe, input.name);
+    total.nan += counts.nan; total.infinite += counts.infinite; total.negative += counts.negative; total.clampedHigh += counts.clampedHigh;
+    data!.set(rgb, face * size * size * 3);
+  });
+  return { kind: 'cube', size, data: data!, sanitized: total };
+}

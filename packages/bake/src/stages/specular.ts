@@ -1,0 +1,201 @@
+/**
+ * Stage 4: the specular chain. Level 0 is the resampled cube; each level m >= 1 holds LD at its texel
+ * centres for roughness r_m, by GGX importance sampling (n = v = r) with NoL weights and, when enabled,
+ * filtered importance sampling. A level's sample set is built once here and shared by all its texels.
+ */
+
+import {
+  alphaFromPerceptualRoughness, cubeFaceSolidAngleTable, cubeTexelCenterDirection, FOUR_PI, ggxD, hammersleyPoint, luminance, rotateUnit, rotationOffsetsForSeed, sampleGgxHalfVector,
+} from '@lightkiln/math';
+import { sharedFloat32, sharedFloat64 } from '@lightkiln/pool';
+import type { ConvolveParams } from '../kernels/convolve.js';
+import { SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
+import { jobOptions, kernel, type StageContext } from './context.js';
+import { levelView, type Pyramid } from './pyramid.js';
+
+export interface SampleSetOptions {
+  readonly sampleCount: number;
+  readonly filtered: boolean;
+  readonly lodBias: number;
+  /** Seed of the level's Cranley-Patterson rotation; 0 = none. */
+  readonly rotationSeed: number;
+}
+
+/**
+ * The sample set of one level (SPECULAR_SAMPLE_STRIDE floats per kept sample): h from the Hammersley
+ * point i of N (Walter et al. 2007 GGX sampling), l = 2 (n.h) h - n in the local frame (n = v = z),
+ * weight NoL, and for filtered importance sampling the source level
+ * lod = max(0.5 log2(Omega_s / Omega_p) + bias, 0), Omega_s = 1 / (N p(l)), p(l) = D(h) / 4 (n = v),
+ * Omega_p = 4 pi / (6 w^2) for the level-0 face width w (Krivanek & Colbert 2008; REFERENCES.md sec. 7).
+ * Samples with NoL <= 0 are dropped (they carry no weight).
+ */
+export function buildSampleSet(alpha: number, pyramid: Pyramid, options: SampleSetOptions): Float64Array {
+  const n = options.sampleCount;
+  const out = new Float64Array(n * SPECULAR_SAMPLE_STRIDE);
+  const h = new Float64Array(3);
+  const u = new Float64Array(2);
+  const shift = new Float64Array(2);
+  rotationOffsetsForSeed(shift, 0, options.rotationSeed);
+  const w0 = pyramid.sizes[0]!;
+  const omegaP = FOUR_PI / (6 * w0 * w0);
+  const maxLevel = pyramid.sizes.length - 1;
+  let kept = 0;
+  for (let i = 0; i < n; i++) {
+    hammersleyPoint(u, 0, i, n);
+    sampleGgxHalfVector(h, 0, alpha, rotateUnit(u[0]!, shift[0]!), rotateUnit(u[1]!, shift[1]!));
+    const nh = h[2]!;
+    const lx = 2 * nh * h[0]!;
+    const ly = 2 * nh * h[1]!;
+    const lz = 2 * nh * nh - 1;
+    if (lz <= 0) continue;
+    let lod = 0;
+    if (options.filtered) {
+      const pdf = ggxD(nh, alpha) / 4;
+      const omegaS = 1 / (n * pdf);
+      lod = Math.max(0.5 * Math.log2(omegaS / omegaP) + options.lodBias, 0);
+      if (lod > maxLevel) lod = maxLevel;
+    }
+    const l0 = Math.min(Math.floor(lod), maxLevel);
+    const l1 = Math.min(l0 + 1, maxLevel);
+    const o = kept * SPECULAR_SAMPLE_STRIDE;
+    out[o] = lx;
+    out[o + 1] = ly;
+    out[o + 2] = lz;
+    out[o + 3] = lz;
+    out[o + 4] = pyramid.offsets[l0]!;
+    out[o + 5] = pyramid.sizes[l0]!;
+    out[o + 6] = pyramid.offsets[l1]!;
+    out[o + 7] = pyramid.sizes[l1]!;
+    out[o + 8] = l1 === l0 ? 0 : lod - l0;
+    kept++;
+  }
+  return out.slice(0, kept * SPECULAR_SAMPLE_STRIDE);
+}
+
+export interface LevelRequest {
+  readonly level: number;
+  readonly size: number;
+  readonly roughness: number;
+  readonly samples: number;
+}
+
+export interface LevelResult {
+  readonly level: number;
+  readonly size: number;
+  /** RGB float32 texels of the six faces. */
+  readonly data: Float32Array;
+  /** Samples with NoL > 0 actually used per texel. */
+  readonly usedSamples: number;
+  /**
+   * Estimated relative RMS error in luminance: RMS over texels of each texel's standard error (see
+   * kernels/specular.ts), divided by the mean luminance of the level (0 for level 0 and for reference
+   * levels, which are exact quadratures of the level-0 cube). Conservative for low-discrepancy samples.
+   */
+  readonly relativeErrorEstimate: number;
+}
+
+export interface SpecularOptions {
+  readonly filtered: boolean;
+  readonly lodBias: number;
+  readonly clampLuminance: number;
+  readonly rotateSequence: boolean;
+  readonly quality: 'sampled' | 'reference';
+}
+
+/** Computes the requested levels (all >= 1) in one pool job, so tiles of all levels interleave. */
+export async function prefilterLevels(pyramid: Pyramid, requests: readonly LevelRequest[], options: SpecularOptions, ctx: StageContext): Promise<LevelResult[]> {
+  if (requests.length === 0) return [];
+  if (options.quality === 'reference') return referenceLevels(pyramid, requests, ctx);
+  const sets = requests.map((req) => buildSampleSet(alphaFromPerceptualRoughness(req.roughness), pyramid, {
+    sampleCount: req.samples,
+    filtered: options.filtered,
+    lodBias: options.lodBias,
+    rotationSeed: options.rotateSequence ? 0x51 + req.level : 0,
+  }));
+  const totalSamples = sets.reduce((n, s) => n + s.length, 0);
+  const samples = sharedFloat64(Math.max(1, totalSamples));
+  let sampleOffset = 0;
+  let texels = 0;
+  const segmentParams: SpecularParams[] = [];
+  const segments = [];
+  for (let r = 0; r < requests.length; r++) {
+    const req = requests[r]!;
+    samples.set(sets[r]!, sampleOffset * SPECULAR_SAMPLE_STRIDE);
+    const count = sets[r]!.length / SPECULAR_SAMPLE_STRIDE;
+    const perLevel = 6 * req.size * req.size;
+    const params: SpecularParams = { levelBegin: texels, size: req.size, dstOffset: texels * 3, sampleOffset, sampleCount: count, clampLuminance: options.clampLuminance };
+    for (let f = 0; f < 6; f++) {
+      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: Math.max(1, count), rowLength: req.size, label: `level ${req.level} face ${f}` });
+      segmentParams.push(params);
+    }
+    sampleOffset += count;
+    texels += perLevel;
+  }
+  const dst = sharedFloat32(texels * 3);
+  const err = sharedFloat32(texels);
+  await ctx.pool.run({ kernel: kernel('prefilterSpecular'), buffers: { pyramid: pyramid.data, samples, dst, err }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  return requests.map((req, r) => {
+    const p = segmentParams[r * 6]!;
+    const n = 6 * req.size * req.size;
+    const data = dst.slice(p.dstOffset, p.dstOffset + n * 3);
+    let sumErr2 = 0;
+    let sumY = 0;
+    for (let t = 0; t < n; t++) {
+      const e = err[p.levelBegin + t]!;
+      sumErr2 += e * e;
+      sumY += luminance(data[t * 3]!, data[t * 3 + 1]!, data[t * 3 + 2]!);
+    }
+    const meanY = sumY / n;
+    return { level: req.level, size: req.size, data, usedSamples: p.sampleCount, relativeErrorEstimate: meanY > 0 ? Math.sqrt(sumErr2 / n) / meanY : 0 };
+  });
+}
+
+/** Per source texel (x, y, z, solid angle) of a pyramid level, float64 in shared memory. */
+export function sourceDirections(pyramid: Pyramid, level: number): Float64Array {
+  const n = pyramid.sizes[level]!;
+  const out = sharedFloat64(6 * n * n * 4);
+  const d = new Float64Array(3);
+  const solid = cubeFaceSolidAngleTable(n);
+  for (let f = 0; f < 6; f++) {
+    for (let y = 0; y < n; y++) {
+      for (let x = 0; x < n; x++) {
+        const t = (f * n + y) * n + x;
+        cubeTexelCenterDirection(d, 0, f, x, y, n);
+        out[t * 4] = d[0]!;
+        out[t * 4 + 1] = d[1]!;
+        out[t * 4 + 2] = d[2]!;
+        out[t * 4 + 3] = solid[y * n + x]!;
+      }
+    }
+  }
+  return out;
+}
+
+/** The `reference` mode: brute-force GGX convolution of the level-0 cube for each requested level. */
+async function referenceLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext): Promise<LevelResult[]> {
+  const dirs = sourceDirections(pyramid, 0);
+  const srcTexels = 6 * pyramid.sizes[0]! ** 2;
+  let texels = 0;
+  const segments = [];
+  const segmentParams: ConvolveParams[] = [];
+  for (const req of requests) {
+    const params: ConvolveParams = { srcOffset: 0, srcTexels, size: req.size, levelBegin: texels, dstOffset: texels * 3, alpha: alphaFromPerceptualRoughness(req.roughness) };
+    for (let f = 0; f < 6; f++) {
+      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: srcTexels, rowLength: req.size, label: `reference level ${req.level} face ${f}` });
+      segmentParams.push(params);
+    }
+    texels += 6 * req.size * req.size;
+  }
+  const dst = sharedFloat32(texels * 3);
+  await ctx.pool.run({ kernel: kernel('referenceSpecular'), buffers: { pyramid: pyramid.data, srcDirs: dirs, dst }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  return requests.map((req, r) => {
+    const p = segmentParams[r * 6]!;
+    const n = 6 * req.size * req.size;
+    return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: srcTexels, relativeErrorEstimate: 0 };
+  });
+}
+
+/** Level 0 of the chain: the resampled cube itself (r = 0 is the mirror). */
+export function mirrorLevel(pyramid: Pyramid): LevelResult {
+  return { level: 0, size: pyramid.sizes[0]!, data: levelView(pyramid, 0).slice(), usedSamples: 1, relativeErrorEstimate: 0 };
+}
