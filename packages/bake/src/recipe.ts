@@ -231,7 +231,7 @@ export function resolveRecipe(recipe: Recipe): ResolvedRecipe {
     samples = [...r.samples];
   }
   samples.forEach((s, i) => {
-    if (s > r.limits.maxSamples) throw invalidRecipe(`samples.${i}: ${s} exceeds limits.maxSamples (${r.limits.maxSamples})`);
+    if (i > 0 && s > r.limits.maxSamples) throw invalidRecipe(`samples.${i}: ${s} exceeds limits.maxSamples (${r.limits.maxSamples})`);
   });
   let work = 0;
   for (let m = 1; m < levels; m++) work += 6 * Math.max(1, r.size >> m) ** 2 * (r.quality === 'reference' ? 6 * r.size * r.size : samples[m]!);

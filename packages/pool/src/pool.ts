@@ -85,6 +85,8 @@ export class WorkerPool {
       }
       this.#piscina = new Piscina({
         filename,
+        // Workers load built files: drop any "--conditions" (e.g. a test runner's source condition).
+        execArgv: workerExecArgv(process.execArgv),
         minThreads: this.threads,
         maxThreads: this.threads,
         concurrentTasksPerWorker: 1,
@@ -237,6 +239,21 @@ export class WorkerPool {
     if (piscina !== null) await piscina.destroy();
     for (const [key, pool] of sharedPools) if (pool === this) sharedPools.delete(key);
   }
+}
+
+/** The parent's execArgv without --conditions / -C flags, which would point workers at TypeScript sources. */
+export function workerExecArgv(execArgv: readonly string[]): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < execArgv.length; i++) {
+    const arg = execArgv[i]!;
+    if (arg === '--conditions' || arg === '-C') {
+      i++;
+      continue;
+    }
+    if (arg.startsWith('--conditions=') || arg.startsWith('-C=')) continue;
+    out.push(arg);
+  }
+  return out;
 }
 
 const sharedPools = new Map<number, WorkerPool>();

@@ -84,7 +84,11 @@ export function referenceSpecular(buffers: SharedBuffers, begin: number, end: nu
   }
 }
 
-/** Irradiance E(n) = sum_j L_j max(0, n.l_j) dOmega_j (direct cosine convolution; E, not E / pi). */
+/**
+ * Irradiance E(n) = integral L max(0, n.l) dl (E, not E / pi) as a normalised quadrature:
+ * pi * sum_j L_j w_j / sum_j w_j with w_j = max(0, n.l_j) dOmega_j, using integral max(0, n.l) dl = pi,
+ * so a constant environment gives exactly pi L despite texels straddling the horizon.
+ */
 export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: number, params: ConvolveParams): void {
   const pyr = buffers.pyramid as Float32Array;
   const dirs = buffers.srcDirs as Float64Array;
@@ -106,6 +110,7 @@ export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: n
     let r = 0;
     let g = 0;
     let b = 0;
+    let wsum = 0;
     for (let j = 0; j < count; j++) {
       const nl = nx * dirs[4 * j]! + ny * dirs[4 * j + 1]! + nz * dirs[4 * j + 2]!;
       if (nl <= 0) continue;
@@ -114,10 +119,12 @@ export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: n
       r += pyr[o]! * w;
       g += pyr[o + 1]! * w;
       b += pyr[o + 2]! * w;
+      wsum += w;
     }
     const o = params.dstOffset + local * 3;
-    dst[o] = r;
-    dst[o + 1] = g;
-    dst[o + 2] = b;
+    const k = Math.PI / wsum;
+    dst[o] = r * k;
+    dst[o + 1] = g * k;
+    dst[o + 2] = b * k;
   }
 }
