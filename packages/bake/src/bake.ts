@@ -72,6 +72,16 @@ export interface BakeResult {
   readonly cache: CacheStats;
 }
 
+export interface LutOptions {
+  /** Table size (square), 8..1024. Default 128. */
+  readonly size?: number;
+  /** Samples per texel, 16..65536. Default 1024. */
+  readonly samples?: number;
+  readonly multiscatter?: boolean;
+  readonly cloth?: boolean;
+  readonly supercompression?: 'none' | 'zlib';
+}
+
 export interface PlanItem {
   readonly kind: string;
   readonly key: string;
@@ -470,6 +480,28 @@ export class Baker {
       if (outDir !== undefined) writeAtomically(outDir, artifacts);
       if (this.#store !== null && this.#options.cacheMaxBytes !== undefined) await pruneStore(this.#store, this.#options.cacheMaxBytes);
       return { artifacts, manifest, cache: { ...cache.stats } };
+    } catch (error) {
+      throw toLightkilnError(error);
+    }
+  }
+
+  /**
+   * Bakes the DFG lookup table alone (it does not depend on any input) as a KTX 2.0 file, through the
+   * same cache as the probes.
+   */
+  async lut(options: LutOptions = {}, run: { readonly signal?: AbortSignal; readonly onProgress?: (p: BakeProgress) => void } = {}): Promise<BakedArtifact> {
+    try {
+      if (this.#closed) throw new LightkilnError('INVALID_OPTION', 'the baker is closed');
+      const resolved = resolveRecipe({ input: { bytes: new Uint8Array(1), name: 'lut' }, dfg: { enabled: true, ...(options.size !== undefined ? { size: options.size } : {}), ...(options.samples !== undefined ? { samples: options.samples } : {}), ...(options.multiscatter !== undefined ? { multiscatter: options.multiscatter } : {}), ...(options.cloth !== undefined ? { cloth: options.cloth } : {}) }, output: { supercompression: options.supercompression ?? 'none' } });
+      const keys = computeKeys(resolved, '0'.repeat(64));
+      const cache = new EntryCache(this.#store);
+      const ctx: StageContext = { pool: this.#pool, signal: run.signal, onProgress: run.onProgress, targetTileCost: this.#options.targetTileCost };
+      const bakeRun = new BakeRun(resolved, [], keys, cache, ctx);
+      const file = await bakeRun.file<{ channels: string[] }>(keys.lutFile, async () => {
+        const table = await bakeRun.dfg();
+        return { bytes: encodeDfgKtx2(table, resolved.output.supercompression, resolved.dfg.samples), meta: { channels: [...table.channelNames] } };
+      });
+      return { kind: 'lut', name: 'dfg.ktx2', path: null, format: file.meta.channels.length === 2 ? 'ktx2/rg16f' : 'ktx2/rgba16f', bytes: file.bytes, sha256: sha256Hex(file.bytes), fromCache: file.fromCache };
     } catch (error) {
       throw toLightkilnError(error);
     }

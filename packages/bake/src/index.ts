@@ -1,5 +1,5 @@
 export { createBaker, Baker, STAGE_VERSIONS } from './bake.js';
-export type { BakerOptions, BakeRunOptions, BakeResult, BakedArtifact, ArtifactKind, BakePlan, PlanItem } from './bake.js';
+export type { LutOptions, BakerOptions, BakeRunOptions, BakeResult, BakedArtifact, ArtifactKind, BakePlan, PlanItem } from './bake.js';
 export { resolveRecipe, SAMPLE_PRESETS, SAFE_NAME } from './recipe.js';
 export type { Recipe, RecipeInput, ResolvedRecipe, SamplePreset, CubeFormat, ShWindow } from './recipe.js';
 export { LightkilnError, USER_ERROR_CODES, toLightkilnError } from './errors.js';
@@ -13,3 +13,5 @@ export { MANIFEST_SCHEMA_VERSION, TOOL_NAME, TOOL_VERSION } from './manifest.js'
 export type { BakeProgress } from './stages/context.js';
 export { cubeCross } from './stages/encode.js';
 export { closeSharedPools, getSharedPool, WorkerPool } from '@lightkiln/pool';
+export { inspectBytes } from './inspect.js';
+export type { FileSummary, ValueRange } from './inspect.js';

@@ -1,0 +1,138 @@
+/** `lightkiln bake`: one or many inputs, or a batch file, sharing one pool; failures reported per probe. */
+
+import { readFileSync } from 'node:fs';
+import { dirname, isAbsolute, resolve } from 'node:path';
+import { createBaker, LightkilnError, type BakerOptions, type Recipe } from '@lightkiln/bake';
+import { parseArgs, UsageError } from '../args.js';
+import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, printJson, type CommandContext } from '../io.js';
+import { createProgress } from '../progress.js';
+
+const SPEC = {
+  out: { type: 'string' }, size: { type: 'number' }, levels: { type: 'number' }, samples: { type: 'string' },
+  rotate: { type: 'number' }, format: { type: 'string' }, 'irradiance-size': { type: 'number' }, filtered: { type: 'boolean' },
+  zlib: { type: 'boolean' }, views: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' },
+  threads: { type: 'number' }, cache: { type: 'boolean' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' },
+  help: { type: 'boolean' },
+} as const;
+
+export function bakerOptions(flags: Record<string, unknown>): BakerOptions {
+  const cacheOff = flags.cache === false;
+  if (cacheOff && flags['cache-dir'] !== undefined) throw new UsageError('bake', '--no-cache and --cache-dir exclude each other');
+  return {
+    ...(flags.threads !== undefined ? { threads: flags.threads as number } : {}),
+    cache: cacheOff ? false : ((flags['cache-dir'] as string | undefined) ?? '.lightkiln-cache'),
+  };
+}
+
+function readJson(path: string, what: string): unknown {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (error) {
+    throw new LightkilnError('INVALID_INPUT', `${path}: cannot read the ${what} (${(error as { code?: string }).code ?? 'error'})`, { file: path });
+  }
+  try {
+    return JSON.parse(text);
+  } catch (error) {
+    throw new LightkilnError('INVALID_INPUT', `${path}: the ${what} is not valid JSON (${(error as Error).message})`, { file: path });
+  }
+}
+
+function flagRecipe(flags: Record<string, unknown>): Partial<Recipe> {
+  const samples = flags.samples as string | undefined;
+  let parsedSamples: Recipe['samples'] | undefined;
+  if (samples !== undefined) {
+    if (/^\d+$/.test(samples)) parsedSamples = Number(samples);
+    else if (samples === 'draft' || samples === 'default' || samples === 'high') parsedSamples = samples;
+    else throw new UsageError('bake', `--samples must be draft, default, high or a number, got "${samples}"`);
+  }
+  const output: Record<string, unknown> = {};
+  if (flags.format !== undefined) output.specularFormat = flags.format;
+  if (flags.zlib === true) output.supercompression = 'zlib';
+  if (flags.views === true) output.views = ['hdr'];
+  return {
+    ...(flags.size !== undefined ? { size: flags.size as number } : {}),
+    ...(flags.levels !== undefined ? { levels: flags.levels as number } : {}),
+    ...(parsedSamples !== undefined ? { samples: parsedSamples } : {}),
+    ...(flags.rotate !== undefined ? { rotationDeg: flags.rotate as number } : {}),
+    ...(flags.filtered === false ? { filtered: false } : {}),
+    ...(flags['irradiance-size'] !== undefined ? { irradiance: { cubeSize: flags['irradiance-size'] as number } } : {}),
+    ...(Object.keys(output).length > 0 ? { output: output as Recipe['output'] } : {}),
+  };
+}
+
+/** Merges base recipe fields with flag fields (one level deep for the nested groups). */
+function merge(base: Record<string, unknown>, over: Record<string, unknown>): Record<string, unknown> {
+  const out: Record<string, unknown> = { ...base };
+  for (const [k, v] of Object.entries(over)) {
+    const b = out[k];
+    out[k] = typeof v === 'object' && v !== null && !Array.isArray(v) && typeof b === 'object' && b !== null && !Array.isArray(b) ? { ...b, ...v } : v;
+  }
+  return out;
+}
+
+export async function bakeCommand(argv: readonly string[], ctx: CommandContext): Promise<number> {
+  const { positionals, flags } = parseArgs('bake', argv, SPEC);
+  if (flags.help === true) return -1;
+  const out = flags.out as string | undefined;
+  if (out === undefined) throw new UsageError('bake', 'missing --out <dir>');
+  if (positionals.length === 0 && flags.batch === undefined) throw new UsageError('bake', 'give at least one input file or --batch <file>');
+  if (positionals.length > 0 && flags.batch !== undefined) throw new UsageError('bake', 'give input files or --batch, not both');
+  if (flags.name !== undefined && positionals.length !== 1) throw new UsageError('bake', '--name needs exactly one input');
+  const base = flags.recipe !== undefined ? readJson(flags.recipe as string, 'recipe') : {};
+  if (typeof base !== 'object' || base === null || Array.isArray(base)) throw new LightkilnError('INVALID_RECIPE', `${String(flags.recipe)}: a recipe file holds one JSON object`);
+  const fromFlags = flagRecipe(flags);
+  let recipes: Recipe[];
+  if (flags.batch !== undefined) {
+    const batchPath = flags.batch as string;
+    const list = readJson(batchPath, 'batch file');
+    if (!Array.isArray(list)) throw new LightkilnError('INVALID_RECIPE', `${batchPath}: a batch file holds a JSON list of recipes`);
+    const root = dirname(batchPath);
+    recipes = list.map((item, i) => {
+      if (typeof item !== 'object' || item === null) throw new LightkilnError('INVALID_RECIPE', `${batchPath}: entry ${i} is not an object`);
+      const r = merge(merge(base as Record<string, unknown>, item as Record<string, unknown>), fromFlags as Record<string, unknown>) as unknown as Recipe;
+      const input = r.input as { path?: string; faces?: string[] } | undefined;
+      const fix = (p: string): string => (isAbsolute(p) ? p : resolve(root, p));
+      return { ...r, input: { ...input, ...(input?.path !== undefined ? { path: fix(input.path) } : {}), ...(input?.faces !== undefined ? { faces: input.faces.map(fix) } : {}) } } as Recipe;
+    });
+  } else {
+    recipes = positionals.map((path) => merge(merge(base as Record<string, unknown>, fromFlags as Record<string, unknown>), {
+      input: { path }, ...(flags.name !== undefined ? { name: flags.name } : {}),
+    }) as unknown as Recipe);
+  }
+  const baker = createBaker(bakerOptions(flags));
+  const progress = createProgress({ quiet: ctx.quiet, label: 'lightkiln' });
+  const results: Record<string, unknown>[] = [];
+  const artifacts: { kind: string; path: string; sha256: string; probe: string }[] = [];
+  let failed = 0;
+  let userFailures = 0;
+  try {
+    for (const recipe of recipes) {
+      const label = (recipe.input as { path?: string } | undefined)?.path ?? recipe.name ?? 'probe';
+      if (ctx.signal.aborted) break;
+      try {
+        const started = performance.now();
+        const result = await baker.bake(recipe, { outDir: out, signal: ctx.signal, onProgress: progress.onProgress });
+        for (const a of result.artifacts) artifacts.push({ kind: a.kind, path: a.path!, sha256: a.sha256, probe: result.manifest.probe });
+        const ms = performance.now() - started;
+        results.push({ input: label, probe: result.manifest.probe, ok: true, ms: Math.round(ms), cache: result.cache });
+        progress.log(`baked ${result.manifest.probe} in ${(ms / 1000).toFixed(2)} s (${result.artifacts.filter((a) => a.fromCache).length} of ${result.artifacts.length - 1} files from cache)`);
+      } catch (error) {
+        const e = error instanceof LightkilnError ? error : new LightkilnError('BAKE_FAILED', String(error));
+        failed++;
+        if (e.isUserError) userFailures++;
+        results.push({ input: label, ok: false, error: { code: e.code, message: e.message } });
+        progress.log(`error: ${e.message}`);
+        if (e.code === 'ABORTED') break;
+      }
+    }
+  } finally {
+    progress.done();
+    await baker.close();
+  }
+  if (ctx.json) printJson(ctx, { artifacts, probes: results, failed });
+  else if (!ctx.quiet) for (const a of artifacts) ctx.stdout(`${a.kind.padEnd(10)} ${a.path}\n`);
+  if (failed === 0) return EXIT_OK;
+  // A single probe that failed on bad input is a usage/input error; any other failure is a bake failure.
+  return recipes.length === 1 && userFailures === 1 ? EXIT_USAGE : EXIT_FAILED;
+}

@@ -1,0 +1,49 @@
+/** `lightkiln cache stats|verify|prune|clear`. */
+
+import { rmSync } from 'node:fs';
+import { decodeEntry, FolderStore, pruneStore } from '@lightkiln/bake';
+import { parseArgs, UsageError } from '../args.js';
+import { EXIT_FAILED, EXIT_OK, printJson, type CommandContext } from '../io.js';
+
+const SPEC = { 'cache-dir': { type: 'string' }, 'max-bytes': { type: 'number' }, json: { type: 'boolean' }, quiet: { type: 'boolean' }, help: { type: 'boolean' } } as const;
+
+export async function cacheCommand(argv: readonly string[], ctx: CommandContext): Promise<number> {
+  const { positionals, flags } = parseArgs('cache', argv, SPEC);
+  if (flags.help === true) return -1;
+  const action = positionals[0];
+  if (action === undefined || !['stats', 'verify', 'prune', 'clear'].includes(action) || positionals.length > 1) {
+    throw new UsageError('cache', action === undefined ? 'missing action' : `unknown action "${positionals.slice(0).join(' ')}"`);
+  }
+  const dir = (flags['cache-dir'] as string | undefined) ?? '.lightkiln-cache';
+  const store = new FolderStore(dir);
+  const entries = await store.entries();
+  const total = entries.reduce((n, e) => n + e.size, 0);
+  let report: Record<string, unknown>;
+  let code = EXIT_OK;
+  if (action === 'stats') {
+    const oldest = entries.length > 0 ? new Date(Math.min(...entries.map((e) => e.lastUsed))).toISOString() : null;
+    report = { dir, entries: entries.length, bytes: total, leastRecentlyUsed: oldest };
+  } else if (action === 'verify') {
+    let corrupt = 0;
+    for (const e of entries) {
+      const bytes = await store.get(e.key);
+      if (bytes === undefined || decodeEntry(bytes) === null) {
+        corrupt++;
+        await store.delete(e.key);
+      }
+    }
+    report = { dir, entries: entries.length, corrupt, removed: corrupt };
+    if (corrupt > 0) code = EXIT_FAILED;
+  } else if (action === 'prune') {
+    const max = flags['max-bytes'] as number | undefined;
+    if (max === undefined || max < 0) throw new UsageError('cache', 'prune needs --max-bytes N (N >= 0)');
+    report = { dir, ...(await pruneStore(store, max)) };
+  } else {
+    for (const e of entries) await store.delete(e.key);
+    rmSync(dir, { recursive: true, force: true });
+    report = { dir, removed: entries.length, freedBytes: total };
+  }
+  if (ctx.json) printJson(ctx, report);
+  else ctx.stdout(`${Object.entries(report).map(([k, v]) => `${k}: ${String(v)}`).join('\n')}\n`);
+  return code;
+}

@@ -1,0 +1,72 @@
+#!/usr/bin/env node
+/** The `lightkiln` command: dispatch, exit codes (0 ok, 1 bake failed, 2 bad usage or input), Ctrl-C. */
+
+import { closeSharedPools, LightkilnError } from '@lightkiln/bake';
+import { UsageError } from './args.js';
+import { bakeCommand } from './commands/bake.js';
+import { cacheCommand } from './commands/cache.js';
+import { inspectCommand } from './commands/inspect.js';
+import { lutCommand } from './commands/lut.js';
+import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, type CommandContext } from './io.js';
+import { USAGE } from './usage.js';
+
+const COMMANDS: Record<string, (argv: readonly string[], ctx: CommandContext) => Promise<number>> = {
+  bake: bakeCommand,
+  lut: lutCommand,
+  inspect: inspectCommand,
+  cache: cacheCommand,
+};
+
+export async function main(argv: readonly string[]): Promise<number> {
+  const [command, ...rest] = argv;
+  const controller = new AbortController();
+  const onSigint = (): void => {
+    process.stderr.write('\ninterrupted: stopping the bake (no partial outputs are left)\n');
+    controller.abort(new Error('SIGINT'));
+  };
+  process.on('SIGINT', onSigint);
+  const ctx: CommandContext = {
+    json: rest.includes('--json'),
+    quiet: rest.includes('--quiet'),
+    stdout: (t) => process.stdout.write(t),
+    stderr: (t) => process.stderr.write(t),
+    signal: controller.signal,
+  };
+  try {
+    if (command === undefined || command === '--help' || command === 'help' || command === '-h') {
+      process.stdout.write(`${USAGE.main}\n`);
+      return command === undefined ? EXIT_USAGE : EXIT_OK;
+    }
+    if (command === '--version') {
+      process.stdout.write('lightkiln 0.1.0\n');
+      return EXIT_OK;
+    }
+    const run = COMMANDS[command];
+    if (run === undefined) throw new UsageError('main', `unknown command "${command}"`);
+    const code = await run(rest, ctx);
+    if (code === -1) {
+      process.stdout.write(`${USAGE[command]}\n`);
+      return EXIT_OK;
+    }
+    return code;
+  } catch (error) {
+    if (error instanceof UsageError) {
+      process.stderr.write(`lightkiln ${error.command === 'main' ? '' : `${error.command}: `}${error.message}\n\n${USAGE[error.command] ?? USAGE.main}\n`);
+      return EXIT_USAGE;
+    }
+    if (error instanceof LightkilnError) {
+      process.stderr.write(`lightkiln: error: ${error.message}\n`);
+      if (ctx.json) process.stdout.write(`${JSON.stringify({ artifacts: [], error: { code: error.code, message: error.message } }, null, 2)}\n`);
+      return error.isUserError ? EXIT_USAGE : EXIT_FAILED;
+    }
+    process.stderr.write(`lightkiln: internal error: ${error instanceof Error ? error.message : String(error)}\n`);
+    return EXIT_FAILED;
+  } finally {
+    process.off('SIGINT', onSigint);
+    await closeSharedPools();
+  }
+}
+
+main(process.argv.slice(2)).then((code) => {
+  process.exitCode = code;
+});

@@ -1,0 +1,47 @@
+/** Usage texts, printed with a usage error of that command. */
+
+export const USAGE: Readonly<Record<string, string>> = {
+  main: `lightkiln: bake HDR environments into image-based lighting assets
+
+usage:
+  lightkiln bake <input...> --out <dir> [options]   bake probes (specular cube, irradiance, DFG table, manifest)
+  lightkiln lut --out <file.ktx2> [options]        bake the DFG lookup table alone
+  lightkiln inspect <file...>                      summarise a .ktx2, .hdr, .exr, .pfm, .png or manifest
+  lightkiln cache <stats|verify|prune|clear>       look after the bake cache
+
+common options: --json  --quiet  --threads N  --no-cache  --cache-dir D
+run "lightkiln <command> --help" for a command's options`,
+  bake: `usage: lightkiln bake <input...> --out <dir> [options]
+       lightkiln bake --batch <recipes.json> --out <dir> [options]
+
+  --out DIR            output folder (created if missing)                      required
+  --size N             level-0 face size, power of two 4..4096                 default 256
+  --levels N           radiance levels                                         default full chain
+  --samples S          draft | default | high | N samples per texel             default default
+  --rotate DEG         rotation about +Y, degrees (positive turns +Z to +X)    default 0
+  --format F           rgba16f | rgba32f | rgb9e5 | b10g11r11 (specular cube)  default rgba16f
+  --irradiance-size N  irradiance cube face size                               default 32
+  --no-filtered        plain importance sampling (no source mip per sample)
+  --zlib               zlib supercompression in the KTX 2.0 files
+  --views              also write .hdr crosses of level 0 and the irradiance
+  --name NAME          probe name (one input only)                             default input file name
+  --recipe FILE        JSON recipe fields applied to every input (flags win)
+  --batch FILE         JSON list of recipes (input paths relative to the file)
+  --threads N          worker threads (0 = inline)                             default all cores
+  --no-cache           do not read or write the cache
+  --cache-dir DIR      cache folder                                            default .lightkiln-cache
+  --json               print one JSON document on stdout
+  --quiet              no progress on stderr`,
+  lut: `usage: lightkiln lut --out <file.ktx2> [options]
+
+  --out FILE       output .ktx2 file                       required
+  --size N         table size, 8..1024                     default 128
+  --samples N      samples per texel                       default 1024
+  --multiscatter   add E_avg(r) as a third channel
+  --cloth          add the cloth (sheen) albedo channel
+  --zlib           zlib supercompression
+  --threads N, --no-cache, --cache-dir DIR, --json, --quiet`,
+  inspect: `usage: lightkiln inspect <file...> [--json]`,
+  cache: `usage: lightkiln cache stats|verify|clear [--cache-dir DIR] [--json]
+       lightkiln cache prune --max-bytes N [--cache-dir DIR] [--json]`,
+};
