@@ -1,0 +1,188 @@
+/**
+ * End-to-end tests of the lightkiln command through a child process: the contract of DESIGN.md (one JSON
+ * document on stdout with --json, progress on stderr, exit codes 0 / 1 / 2), batches, inspect on every
+ * format, the cache command, the demo scene and Ctrl-C.
+ */
+
+import { spawn, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, describe, expect, it } from 'vitest';
+import { PNG } from 'pngjs';
+import { encodeExr, encodeHdr, encodePfm, encodePng } from '@lightkiln/codecs';
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+const cli = join(root, 'packages/cli/dist/main.js');
+const work = mkdtempSync(join(tmpdir(), 'lightkiln-cli-'));
+afterAll(() => rmSync(work, { recursive: true, force: true }));
+
+function run(args: string[], cwd = work): { status: number; stdout: string; stderr: string } {
+  const r = spawnSync(process.execPath, [cli, ...args], { cwd, encoding: 'utf8', timeout: 120_000, env: { ...process.env, NO_COLOR: '1' } });
+  return { status: r.status ?? -1, stdout: r.stdout, stderr: r.stderr };
+}
+
+function sky(width: number, height: number): Float32Array {
+  const data = new Float32Array(width * height * 3);
+  for (let j = 0; j < height; j++) {
+    for (let i = 0; i < width; i++) {
+      const o = (j * width + i) * 3;
+      data[o] = 1 + j / height; data[o + 1] = 0.6; data[o + 2] = 2 - j / height;
+      if (i === 5 && j === 3) { data[o] = 3000; data[o + 1] = 2500; data[o + 2] = 2000; }
+    }
+  }
+  return data;
+}
+const skyPath = join(work, 'sky.hdr');
+writeFileSync(skyPath, encodeHdr({ width: 64, height: 32, channels: 3, data: sky(64, 32) }));
+const small = ['--size', '16', '--samples', 'draft', '--no-cache'];
+
+describe('lightkiln bake', () => {
+  it('prints exactly one JSON document with --json, progress only on stderr, exit 0', () => {
+    const out = join(work, 'out-json');
+    const r = run(['bake', skyPath, '--out', out, ...small, '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    const doc = JSON.parse(r.stdout);
+    expect(doc.artifacts.map((a: { kind: string }) => a.kind).sort()).toEqual(['irradiance', 'lut', 'manifest', 'specular']);
+    for (const a of doc.artifacts) {
+      expect(a.sha256).toMatch(/^[0-9a-f]{64}$/);
+      expect(existsSync(a.path)).toBe(true);
+    }
+    expect(r.stderr).toContain('baked sky');
+  });
+
+  it('prints nothing on stderr with --quiet', () => {
+    const r = run(['bake', skyPath, '--out', join(work, 'out-quiet'), ...small, '--quiet']);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe('');
+  });
+
+  it('exits 2 with the command usage on bad usage', () => {
+    for (const args of [['bake', skyPath], ['bake', '--out', work], ['bake', skyPath, '--out', work, '--size', 'big'], ['bake', skyPath, '--out', work, '--bogus'], ['frobnicate']]) {
+      const r = run(args);
+      expect(r.status, args.join(' ')).toBe(2);
+      expect(r.stderr).toMatch(/usage: lightkiln|lightkiln: bake HDR/);
+      expect(r.stdout).toBe('');
+    }
+  });
+
+  it('exits 2 naming the file and the reason on a bad input, writing nothing', () => {
+    const bad = join(work, 'broken.hdr');
+    writeFileSync(bad, readFileSync(skyPath).subarray(0, 80));
+    const out = join(work, 'out-bad');
+    const r = run(['bake', bad, '--out', out, ...small, '--json']);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain(`${bad}: file is truncated`);
+    expect(JSON.parse(r.stdout).probes[0].error.code).toBe('INVALID_INPUT');
+    expect(existsSync(out) ? readdirSync(out) : []).toEqual([]);
+    const bigSize = run(['bake', skyPath, '--out', out, '--size', '100', '--no-cache']);
+    expect(bigSize.status).toBe(2);
+    expect(bigSize.stderr).toMatch(/size: must be a power of two/);
+  });
+
+  it('bakes a batch, reports the failing probe and goes on (exit 1)', () => {
+    const batch = join(work, 'batch.json');
+    writeFileSync(join(work, 'also.pfm'), encodePfm({ width: 32, height: 16, channels: 3, data: sky(32, 16) }));
+    writeFileSync(batch, JSON.stringify([
+      { input: { path: 'sky.hdr' }, name: 'first' },
+      { input: { path: 'missing.hdr' }, name: 'second' },
+      { input: { path: 'also.pfm' }, name: 'third', rotationDeg: 45 },
+    ]));
+    const out = join(work, 'out-batch');
+    const r = run(['bake', '--batch', batch, '--out', out, ...small, '--json']);
+    expect(r.status).toBe(1);
+    const doc = JSON.parse(r.stdout);
+    expect(doc.probes.map((p: { ok: boolean }) => p.ok)).toEqual([true, false, true]);
+    expect(doc.probes[1].error.message).toContain('missing.hdr');
+    expect(existsSync(join(out, 'first.probe.json'))).toBe(true);
+    expect(JSON.parse(readFileSync(join(out, 'third.probe.json'), 'utf8')).recipe.rotationDeg).toBe(45);
+  });
+
+  it('uses the cache: the second run reads every file from it', () => {
+    const cacheDir = join(work, 'cache');
+    const args = ['bake', skyPath, '--out', join(work, 'out-cache'), '--size', '16', '--samples', 'draft', '--cache-dir', cacheDir, '--json'];
+    expect(run(args).status).toBe(0);
+    const second = JSON.parse(run(args).stdout);
+    expect(second.probes[0].cache.writes).toBe(0);
+    const stats = JSON.parse(run(['cache', 'stats', '--cache-dir', cacheDir, '--json']).stdout);
+    expect(stats.entries).toBeGreaterThan(5);
+    expect(JSON.parse(run(['cache', 'verify', '--cache-dir', cacheDir, '--json']).stdout).corrupt).toBe(0);
+    const pruned = JSON.parse(run(['cache', 'prune', '--max-bytes', '1000', '--cache-dir', cacheDir, '--json']).stdout);
+    expect(pruned.totalBytes).toBeLessThanOrEqual(1000);
+    expect(run(['cache', 'clear', '--cache-dir', cacheDir]).status).toBe(0);
+    expect(existsSync(cacheDir)).toBe(false);
+    expect(run(['cache', 'prune', '--cache-dir', cacheDir]).status).toBe(2);
+  });
+
+  it('aborts cleanly on SIGINT: exit 1, no artifact and no temp file', async () => {
+    const out = join(work, 'out-sigint');
+    const child = spawn(process.execPath, [cli, 'bake', skyPath, '--out', out, '--size', '256', '--samples', 'high', '--no-cache'], { cwd: work, env: { ...process.env, NO_COLOR: '1' } });
+    let stderr = '';
+    const code = await new Promise<number>((resolve) => {
+      child.stderr.on('data', (chunk: Buffer) => {
+        stderr += chunk.toString();
+        if (stderr.includes('specular') && !child.killed) child.kill('SIGINT');
+      });
+      // The specular stage of this bake takes several seconds; a plain progress line appears within 2 s.
+      setTimeout(() => { if (!child.killed) child.kill('SIGINT'); }, 4000);
+      child.on('exit', (c) => resolve(c ?? -1));
+    });
+    expect(code).toBe(1);
+    expect(stderr).toContain('interrupted');
+    expect(existsSync(out) ? readdirSync(out) : []).toEqual([]);
+  });
+});
+
+describe('lightkiln lut', () => {
+  it('writes a KTX 2.0 table and reports it as JSON', () => {
+    const file = join(work, 'tables', 'dfg.ktx2');
+    const r = run(['lut', '--out', file, '--size', '16', '--samples', '64', '--multiscatter', '--no-cache', '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    const doc = JSON.parse(r.stdout);
+    expect(doc.artifacts[0]).toMatchObject({ kind: 'lut', path: file });
+    expect(readFileSync(file).subarray(1, 7).toString('latin1')).toBe('KTX 20');
+    expect(run(['lut', '--out', join(work, 'x.png')]).status).toBe(2);
+  });
+});
+
+describe('lightkiln inspect', () => {
+  it('summarises every format we read or write', () => {
+    const out = join(work, 'out-inspect');
+    expect(run(['bake', skyPath, '--out', out, ...small, '--views']).status).toBe(0);
+    writeFileSync(join(work, 'i.exr'), encodeExr({ width: 8, height: 4, channels: 3, data: sky(8, 4) }));
+    writeFileSync(join(work, 'i.pfm'), encodePfm({ width: 8, height: 4, channels: 3, data: sky(8, 4) }));
+    writeFileSync(join(work, 'i.png'), encodePng({ width: 2, height: 2, channels: 3, data: new Uint8Array(12) }));
+    expect(PNG.sync.read(readFileSync(join(work, 'i.png'))).width).toBe(2);
+    const files = ['sky.specular.ktx2', 'sky.dfg.ktx2', 'sky.probe.json', 'sky.mirror.hdr'].map((f) => join(out, f)).concat(['i.exr', 'i.pfm', 'i.png'].map((f) => join(work, f)));
+    const r = run(['inspect', ...files, '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    const doc = JSON.parse(r.stdout);
+    expect(doc.files.map((f: { format: string }) => f.format)).toEqual(['ktx2', 'ktx2', 'manifest', 'hdr', 'exr', 'pfm', 'png']);
+    expect(doc.files[0].details.levels[1].roughness).toBe(0.25);
+    expect(doc.files[0].details.dataFormatDescriptor.transfer).toBe('linear');
+    expect(doc.files[2].details.sh.radiance).toHaveLength(9);
+    const text = run(['inspect', join(out, 'sky.specular.ktx2')]);
+    expect(text.stdout).toContain('VK_FORMAT_R16G16B16A16_SFLOAT (97)');
+    const junk = join(work, 'junk.bin');
+    writeFileSync(junk, 'hello');
+    const bad = run(['inspect', junk]);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toContain(`${junk}: unknown file type`);
+  });
+});
+
+describe('the demo scene (examples/observatory-dusk)', () => {
+  it('generates the sky with our own script and bakes it with the default preset', () => {
+    const hdr = join(work, 'dusk.hdr');
+    const gen = spawnSync(process.execPath, [join(root, 'examples/observatory-dusk/make-sky.mjs'), hdr, '256'], { encoding: 'utf8' });
+    expect(gen.status, gen.stderr).toBe(0);
+    const r = run(['bake', hdr, '--out', join(work, 'out-demo'), '--size', '32', '--no-cache', '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    const manifest = JSON.parse(readFileSync(join(work, 'out-demo', 'dusk.probe.json'), 'utf8'));
+    expect(manifest.recipe.samplePreset).toBe('default');
+    // The sun is far brighter than anything else: the mirror level keeps a very bright texel.
+    const insp = JSON.parse(run(['inspect', join(work, 'out-demo', 'dusk.specular.ktx2'), '--json']).stdout);
+    expect(insp.files[0].details.levels[0].max).toBeGreaterThan(100);
+  });
+});
