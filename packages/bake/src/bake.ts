@@ -26,7 +26,7 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 1, level: 1, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1,
+  source: 1, pyramid: 2, level: 1, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1,
 });
 
 export interface BakerOptions {
@@ -134,6 +134,11 @@ function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
   return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views };
 }
 
+function toF64(a: unknown): Float64Array {
+  if (!(a instanceof Float64Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
+  return a;
+}
+
 function toF32(a: unknown): Float32Array {
   if (!(a instanceof Float32Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
   return a;
@@ -189,7 +194,7 @@ class BakeRun {
       const entry = await this.cache.get(this.keys.pyramid);
       if (entry !== null) {
         const layout = pyramidLayout(this.recipe.size);
-        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
+        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF64(entry.arrays[0])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
       }
       const source = await this.source();
       this.#check();

@@ -43,7 +43,7 @@ function centreDirection(out: Float64Array, face: number, tx: number, ty: number
  * where (n.h)^2 = (1 + n.l) / 2 (half-angle identity) and D is GGX (Walter et al. 2007).
  */
 export function referenceSpecular(buffers: SharedBuffers, begin: number, end: number, params: ConvolveParams): void {
-  const pyr = buffers.pyramid as Float32Array;
+  const pyr = buffers.pyramid as Float64Array;
   const dirs = buffers.srcDirs as Float64Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;
@@ -90,7 +90,7 @@ export function referenceSpecular(buffers: SharedBuffers, begin: number, end: nu
  * so a constant environment gives exactly pi L despite texels straddling the horizon.
  */
 export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: number, params: ConvolveParams): void {
-  const pyr = buffers.pyramid as Float32Array;
+  const pyr = buffers.pyramid as Float64Array;
   const dirs = buffers.srcDirs as Float64Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;

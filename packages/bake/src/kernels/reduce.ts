@@ -14,9 +14,9 @@ export interface ReduceParams {
   readonly dstOffset: number;
 }
 
-/** buffers.pyramid: all levels concatenated (RGB float32); items are parent texels of this level. */
+/** buffers.pyramid: all levels concatenated (RGB float64); items are parent texels of this level. */
 export function reducePyramid(buffers: SharedBuffers, begin: number, end: number, params: ReduceParams): void {
-  const pyr = buffers.pyramid as Float32Array;
+  const pyr = buffers.pyramid as Float64Array;
   const size = params.size;
   const child = size * 2;
   const perFace = size * size;

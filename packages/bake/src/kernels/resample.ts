@@ -23,7 +23,7 @@ export interface ResampleParams {
 /** buffers.src: equirect RGB float32 (W x H, row 0 = +Y); buffers.dst: cube RGB float32. */
 export function resampleEquirect(buffers: SharedBuffers, begin: number, end: number, params: ResampleParams): void {
   const src = buffers.src as Float32Array;
-  const dst = buffers.dst as Float32Array;
+  const dst = buffers.dst as Float64Array;
   const size = params.size;
   const k = params.supersample;
   const c = params.rotCos;
@@ -90,7 +90,7 @@ export function resampleEquirect(buffers: SharedBuffers, begin: number, end: num
 /** buffers.src: source cube RGB float32 of face size srcWidth; buffers.dst: cube RGB float32. */
 export function resampleCube(buffers: SharedBuffers, begin: number, end: number, params: ResampleParams): void {
   const src = buffers.src as Float32Array;
-  const dst = buffers.dst as Float32Array;
+  const dst = buffers.dst as Float64Array;
   const size = params.size;
   const k = params.supersample;
   const c = params.rotCos;

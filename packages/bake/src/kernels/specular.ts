@@ -4,12 +4,14 @@
  * reads the source pyramid at its own level of detail, trilinearly (bilinear on two levels), so bright
  * small sources are integrated instead of aliased (Krivanek & Colbert 2008, "Real-time Shading with
  * Filtered Importance Sampling", CGF 27(4)). The level's sample set is the same for every texel and is
- * precomputed (see stages/specular.ts): per sample (lx, ly, lz, NoL, offset0, size0, offset1, size1, frac).
+ * precomputed (see stages/specular.ts): per sample (lx, ly, lz, NoL, frac) as float64 and
+ * (offset0, size0, offset1, size1) of its two source levels as int32 (integer index math stays integral).
  */
 
 import type { SharedBuffers } from '@lightkiln/pool';
 
-export const SPECULAR_SAMPLE_STRIDE = 9;
+export const SPECULAR_SAMPLE_STRIDE = 5;
+export const SPECULAR_LEVEL_STRIDE = 4;
 
 export interface SpecularParams {
   /** Item index of this level's first texel and the level's face size. */
@@ -22,18 +24,23 @@ export interface SpecularParams {
   readonly sampleCount: number;
   /** Firefly clamp: sample luminance above this is scaled down to it; 0 disables. */
   readonly clampLuminance: number;
+  /** Sum of the weights (NoL) and of their squares over the level's samples (the same for every texel). */
+  readonly weightSum: number;
+  readonly weightSquareSum: number;
 }
 
 /**
- * buffers.pyramid (RGB float32, all levels), buffers.samples (float64), buffers.dst (RGB float32),
+ * buffers.pyramid (RGB float64, all levels), buffers.samples (float64), buffers.sampleLevels (int32),
+ * buffers.dst (RGB float32),
  * buffers.err (float32, one per item: the standard error of the texel's luminance estimate, by the delta
  * method for the ratio estimator sum(w Y) / sum(w): sqrt(sum w^2 (Y - R)^2) / sum w (Cochran 1977,
  * "Sampling Techniques", 3rd ed., sec. 6.4; from memory). It treats the samples as independent, so for the
  * low-discrepancy set it is a conservative (high) estimate.
  */
 export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: number, params: SpecularParams): void {
-  const pyr = buffers.pyramid as Float32Array;
+  const pyr = buffers.pyramid as Float64Array;
   const S = buffers.samples as Float64Array;
+  const L = buffers.sampleLevels as Int32Array;
   const dst = buffers.dst as Float32Array;
   const err = buffers.err as Float32Array;
   const size = params.size;
@@ -42,7 +49,10 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
   const dstOffset = params.dstOffset;
   const s0 = params.sampleOffset * SPECULAR_SAMPLE_STRIDE;
   const s1 = s0 + params.sampleCount * SPECULAR_SAMPLE_STRIDE;
+  const l0 = params.sampleOffset * SPECULAR_LEVEL_STRIDE;
   const clamp = params.clampLuminance;
+  const invW = params.weightSum > 0 ? 1 / params.weightSum : 0;
+  const w2 = params.weightSquareSum;
   for (let item = begin; item < end; item++) {
     const local = item - levelBegin;
     const face = (local / perFace) | 0;
@@ -78,11 +88,9 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
     let r = 0;
     let g = 0;
     let b = 0;
-    let wsum = 0;
-    let w2 = 0;
     let w2y = 0;
     let w2yy = 0;
-    for (let k = s0; k < s1; k += 9) {
+    for (let k = s0, q = l0; k < s1; k += 5, q += 4) {
       const lx = S[k]!;
       const ly = S[k + 1]!;
       const lz = S[k + 2]!;
@@ -111,55 +119,68 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
       const im = 0.5 / ma;
       const fs = sc * im + 0.5;
       const ft = tc * im + 0.5;
-      const frac = S[k + 8]!;
-      let sr = 0;
-      let sg = 0;
-      let sb = 0;
-      for (let pass = 0; pass < 2; pass++) {
-        const wt = pass === 0 ? 1 - frac : frac;
-        if (wt === 0) continue;
-        const off = S[k + 4 + 2 * pass]!;
-        const n = S[k + 5 + 2 * pass]!;
-        const max = n - 1;
-        let fx = fs * n - 0.5;
-        let fy = ft * n - 0.5;
-        if (fx < 0) fx = 0; else if (fx > max) fx = max;
-        if (fy < 0) fy = 0; else if (fy > max) fy = max;
-        const x0 = fx | 0;
-        const y0 = fy | 0;
-        const x1 = x0 < max ? 1 : 0;
-        const y1 = y0 < max ? n : 0;
-        const ex = fx - x0;
-        const ey = fy - y0;
-        const i00 = off + ((f * n + y0) * n + x0) * 3;
-        const i10 = i00 + x1 * 3;
-        const i01 = i00 + y1 * 3;
-        const i11 = i01 + x1 * 3;
-        const w00 = (1 - ex) * (1 - ey) * wt;
-        const w10 = ex * (1 - ey) * wt;
-        const w01 = (1 - ex) * ey * wt;
-        const w11 = ex * ey * wt;
+      const frac = S[k + 4]!;
+      // Level l0 with weight (1 - frac) w, level l1 with weight frac w (when frac > 0); the NoL weight w
+      // is folded into the bilinear weights, so sr, sg, sb are w times the sample's radiance.
+      const n0 = L[q + 1]!;
+      const max0 = (n0 - 1) | 0;
+      let fx = fs * n0 - 0.5;
+      let fy = ft * n0 - 0.5;
+      if (fx < 0) fx = 0; else if (fx > max0) fx = max0;
+      if (fy < 0) fy = 0; else if (fy > max0) fy = max0;
+      let x0 = fx | 0;
+      let y0 = fy | 0;
+      let ex = fx - x0;
+      let ey = fy - y0;
+      let i00 = (L[q]! + ((f * n0 + y0) * n0 + x0) * 3) | 0;
+      let i10 = x0 < max0 ? (i00 + 3) | 0 : i00;
+      let i01 = y0 < max0 ? (i00 + n0 * 3) | 0 : i00;
+      let i11 = (i01 + i10 - i00) | 0;
+      const wl = (1 - frac) * w;
+      let w11 = ex * ey * wl;
+      let w10 = ex * wl - w11;
+      let w01 = ey * wl - w11;
+      let w00 = wl - ex * wl - w01;
+      let sr = pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
+      let sg = pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
+      let sb = pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
+      if (frac > 0) {
+        const n1 = L[q + 3]!;
+        const max1 = (n1 - 1) | 0;
+        fx = fs * n1 - 0.5;
+        fy = ft * n1 - 0.5;
+        if (fx < 0) fx = 0; else if (fx > max1) fx = max1;
+        if (fy < 0) fy = 0; else if (fy > max1) fy = max1;
+        x0 = fx | 0;
+        y0 = fy | 0;
+        ex = fx - x0;
+        ey = fy - y0;
+        i00 = (L[q + 2]! + ((f * n1 + y0) * n1 + x0) * 3) | 0;
+        i10 = x0 < max1 ? (i00 + 3) | 0 : i00;
+        i01 = y0 < max1 ? (i00 + n1 * 3) | 0 : i00;
+        i11 = (i01 + i10 - i00) | 0;
+        const wf = frac * w;
+        w11 = ex * ey * wf;
+        w10 = ex * wf - w11;
+        w01 = ey * wf - w11;
+        w00 = wf - ex * wf - w01;
         sr += pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
         sg += pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
         sb += pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
       }
-      // BT.709 luminance of the sample.
-      let lum = 0.2126 * sr + 0.7152 * sg + 0.0722 * sb;
-      if (clamp > 0 && lum > clamp) {
-        const scale = clamp / lum;
-        sr *= scale; sg *= scale; sb *= scale; lum = clamp;
+      // BT.709 luminance of the sample, times w.
+      let wy = 0.2126 * sr + 0.7152 * sg + 0.0722 * sb;
+      if (clamp > 0 && wy > clamp * w) {
+        const scale = (clamp * w) / wy;
+        sr *= scale; sg *= scale; sb *= scale; wy = clamp * w;
       }
-      r += sr * w;
-      g += sg * w;
-      b += sb * w;
-      wsum += w;
-      const ww = w * w;
-      w2 += ww;
-      w2y += ww * lum;
-      w2yy += ww * lum * lum;
+      r += sr;
+      g += sg;
+      b += sb;
+      w2y += w * wy;
+      w2yy += wy * wy;
     }
     const o = dstOffset + local * 3;
-    const invW = wsum > 0 ? 1 / wsum : 0;
     dst[o] = r * invW;
     dst[o + 1] = g * invW;
     dst[o + 2] = b * invW;

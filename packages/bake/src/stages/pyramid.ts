@@ -3,7 +3,7 @@
  * solid-angle-weighted 2 x 2 reduction down to 1 x 1 faces. All levels live in one shared buffer.
  */
 
-import { sharedFloat32, toShared } from '@lightkiln/pool';
+import { sharedFloat64, toShared } from '@lightkiln/pool';
 import type { ResampleParams } from '../kernels/resample.js';
 import type { ReduceParams } from '../kernels/reduce.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
@@ -14,8 +14,8 @@ export interface Pyramid {
   readonly sizes: readonly number[];
   /** Float offset of each level in data. */
   readonly offsets: readonly number[];
-  /** RGB float32 texels of every level (shared memory). */
-  readonly data: Float32Array;
+  /** RGB texels of every level (shared memory), float64: conversion-free loads in the hot kernels. */
+  readonly data: Float64Array;
 }
 
 export function pyramidLayout(size: number): { sizes: number[]; offsets: number[]; length: number } {
@@ -30,7 +30,7 @@ export function pyramidLayout(size: number): { sizes: number[]; offsets: number[
   return { sizes, offsets, length };
 }
 
-export function levelView(pyramid: Pyramid, level: number): Float32Array {
+export function levelView(pyramid: Pyramid, level: number): Float64Array {
   const n = pyramid.sizes[level]!;
   return pyramid.data.subarray(pyramid.offsets[level]!, pyramid.offsets[level]! + 6 * n * n * 3);
 }
@@ -47,7 +47,7 @@ export function supersampleFactor(source: SourceImage, size: number): number {
 
 export async function buildPyramid(source: SourceImage, size: number, rotationDeg: number, ctx: StageContext): Promise<Pyramid> {
   const layout = pyramidLayout(size);
-  const data = sharedFloat32(layout.length);
+  const data = sharedFloat64(layout.length);
   const level0 = data.subarray(0, 6 * size * size * 3);
   const angle = (rotationDeg * Math.PI) / 180;
   const params: ResampleParams = {

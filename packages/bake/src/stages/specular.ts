@@ -7,9 +7,9 @@
 import {
   alphaFromPerceptualRoughness, cubeFaceSolidAngleTable, cubeTexelCenterDirection, FOUR_PI, ggxD, hammersleyPoint, luminance, rotateUnit, rotationOffsetsForSeed, sampleGgxHalfVector,
 } from '@lightkiln/math';
-import { sharedFloat32, sharedFloat64 } from '@lightkiln/pool';
+import { sharedFloat32, sharedFloat64, sharedInt32 } from '@lightkiln/pool';
 import type { ConvolveParams } from '../kernels/convolve.js';
-import { SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
+import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
 import { levelView, type Pyramid } from './pyramid.js';
 
@@ -21,17 +21,25 @@ export interface SampleSetOptions {
   readonly rotationSeed: number;
 }
 
+/** A level's sample set: per kept sample (lx, ly, lz, NoL, frac) and (offset0, size0, offset1, size1). */
+export interface SampleSet {
+  readonly directions: Float64Array;
+  readonly levels: Int32Array;
+  readonly count: number;
+}
+
 /**
- * The sample set of one level (SPECULAR_SAMPLE_STRIDE floats per kept sample): h from the Hammersley
+ * The sample set of one level: h from the Hammersley
  * point i of N (Walter et al. 2007 GGX sampling), l = 2 (n.h) h - n in the local frame (n = v = z),
  * weight NoL, and for filtered importance sampling the source level
  * lod = max(0.5 log2(Omega_s / Omega_p) + bias, 0), Omega_s = 1 / (N p(l)), p(l) = D(h) / 4 (n = v),
  * Omega_p = 4 pi / (6 w^2) for the level-0 face width w (Krivanek & Colbert 2008; REFERENCES.md sec. 7).
  * Samples with NoL <= 0 are dropped (they carry no weight).
  */
-export function buildSampleSet(alpha: number, pyramid: Pyramid, options: SampleSetOptions): Float64Array {
+export function buildSampleSet(alpha: number, pyramid: Pyramid, options: SampleSetOptions): SampleSet {
   const n = options.sampleCount;
   const out = new Float64Array(n * SPECULAR_SAMPLE_STRIDE);
+  const lv = new Int32Array(n * SPECULAR_LEVEL_STRIDE);
   const h = new Float64Array(3);
   const u = new Float64Array(2);
   const shift = new Float64Array(2);
@@ -62,14 +70,15 @@ export function buildSampleSet(alpha: number, pyramid: Pyramid, options: SampleS
     out[o + 1] = ly;
     out[o + 2] = lz;
     out[o + 3] = lz;
-    out[o + 4] = pyramid.offsets[l0]!;
-    out[o + 5] = pyramid.sizes[l0]!;
-    out[o + 6] = pyramid.offsets[l1]!;
-    out[o + 7] = pyramid.sizes[l1]!;
-    out[o + 8] = l1 === l0 ? 0 : lod - l0;
+    out[o + 4] = l1 === l0 ? 0 : lod - l0;
+    const q = kept * SPECULAR_LEVEL_STRIDE;
+    lv[q] = pyramid.offsets[l0]!;
+    lv[q + 1] = pyramid.sizes[l0]!;
+    lv[q + 2] = pyramid.offsets[l1]!;
+    lv[q + 3] = pyramid.sizes[l1]!;
     kept++;
   }
-  return out.slice(0, kept * SPECULAR_SAMPLE_STRIDE);
+  return { directions: out.slice(0, kept * SPECULAR_SAMPLE_STRIDE), levels: lv.slice(0, kept * SPECULAR_LEVEL_STRIDE), count: kept };
 }
 
 export interface LevelRequest {
@@ -112,18 +121,27 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
     lodBias: options.lodBias,
     rotationSeed: options.rotateSequence ? 0x51 + req.level : 0,
   }));
-  const totalSamples = sets.reduce((n, s) => n + s.length, 0);
-  const samples = sharedFloat64(Math.max(1, totalSamples));
+  const totalSamples = sets.reduce((n, s) => n + s.count, 0);
+  const samples = sharedFloat64(Math.max(1, totalSamples * SPECULAR_SAMPLE_STRIDE));
+  const sampleLevels = sharedInt32(Math.max(1, totalSamples * SPECULAR_LEVEL_STRIDE));
   let sampleOffset = 0;
   let texels = 0;
   const segmentParams: SpecularParams[] = [];
   const segments = [];
   for (let r = 0; r < requests.length; r++) {
     const req = requests[r]!;
-    samples.set(sets[r]!, sampleOffset * SPECULAR_SAMPLE_STRIDE);
-    const count = sets[r]!.length / SPECULAR_SAMPLE_STRIDE;
+    samples.set(sets[r]!.directions, sampleOffset * SPECULAR_SAMPLE_STRIDE);
+    sampleLevels.set(sets[r]!.levels, sampleOffset * SPECULAR_LEVEL_STRIDE);
+    const count = sets[r]!.count;
     const perLevel = 6 * req.size * req.size;
-    const params: SpecularParams = { levelBegin: texels, size: req.size, dstOffset: texels * 3, sampleOffset, sampleCount: count, clampLuminance: options.clampLuminance };
+    let weightSum = 0;
+    let weightSquareSum = 0;
+    for (let k = 0; k < count; k++) {
+      const w = sets[r]!.directions[k * SPECULAR_SAMPLE_STRIDE + 3]!;
+      weightSum += w;
+      weightSquareSum += w * w;
+    }
+    const params: SpecularParams = { levelBegin: texels, size: req.size, dstOffset: texels * 3, sampleOffset, sampleCount: count, clampLuminance: options.clampLuminance, weightSum, weightSquareSum };
     for (let f = 0; f < 6; f++) {
       segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: Math.max(1, count), rowLength: req.size, label: `level ${req.level} face ${f}` });
       segmentParams.push(params);
@@ -133,7 +151,7 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
   }
   const dst = sharedFloat32(texels * 3);
   const err = sharedFloat32(texels);
-  await ctx.pool.run({ kernel: kernel('prefilterSpecular'), buffers: { pyramid: pyramid.data, samples, dst, err }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  await ctx.pool.run({ kernel: kernel('prefilterSpecular'), buffers: { pyramid: pyramid.data, samples, sampleLevels, dst, err }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
   return requests.map((req, r) => {
     const p = segmentParams[r * 6]!;
     const n = 6 * req.size * req.size;
@@ -197,5 +215,5 @@ async function referenceLevels(pyramid: Pyramid, requests: readonly LevelRequest
 
 /** Level 0 of the chain: the resampled cube itself (r = 0 is the mirror). */
 export function mirrorLevel(pyramid: Pyramid): LevelResult {
-  return { level: 0, size: pyramid.sizes[0]!, data: levelView(pyramid, 0).slice(), usedSamples: 1, relativeErrorEstimate: 0 };
+  return { level: 0, size: pyramid.sizes[0]!, data: Float32Array.from(levelView(pyramid, 0)), usedSamples: 1, relativeErrorEstimate: 0 };
 }
