@@ -1,10 +1,18 @@
 /** Runs every benchmark suite (or the ones named on the command line) and writes benchmarks/results/. */
 
 import { writeReport } from './common.js';
+import { bakeBench } from './bake.bench.js';
+import { codecsBench } from './codecs.bench.js';
+import { mathBench } from './math.bench.js';
+import { poolBench } from './pool.bench.js';
 import { specularBench } from './specular.bench.js';
 
 const suites: Record<string, () => Promise<void>> = {
+  math: mathBench,
   specular: specularBench,
+  pool: poolBench,
+  codecs: codecsBench,
+  bake: bakeBench,
 };
 
 const wanted = process.argv.slice(2);

@@ -5,7 +5,8 @@
  */
 
 import { binary16ToFloat32, float32ToBinary16 } from '@lightkiln/math';
-import { Unzlib, zlibSync } from 'fflate';
+import { zlibSync } from 'fflate';
+import { inflateBounded } from './zlib.js';
 import { badMagic, CodecError, corrupt, invalidArgument, truncated, unsupported } from './errors.js';
 import { checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
@@ -219,32 +220,10 @@ export function decodeExr(bytes: Uint8Array, options: ExrDecodeOptions = {}): De
 }
 
 /**
- * Inflates a ZIP/ZIPS chunk into exactly `rawSize` bytes, stopping as soon as the stream would exceed it,
- * then undoes the predictor and the even/odd byte split (OpenEXR File Layout, ZIP compression).
+ * Inflates a ZIP/ZIPS chunk into exactly `rawSize` bytes (stopping one byte past it), then undoes the predictor and the even/odd byte split (OpenEXR File Layout, ZIP compression).
  */
 function inflateZipBlock(packed: Uint8Array, rawSize: number, file: string, y: number): Uint8Array {
-  const t = new Uint8Array(rawSize);
-  let written = 0;
-  let overflow = false;
-  const inflater = new Unzlib((chunk) => {
-    if (written + chunk.length > rawSize) {
-      overflow = true;
-      return;
-    }
-    t.set(chunk, written);
-    written += chunk.length;
-  });
-  try {
-    // Feed small slices so a stream that inflates far past its size is caught after ~1 MB, not at the end.
-    const slice = 1024;
-    for (let i = 0; i < packed.length && !overflow; i += slice) {
-      inflater.push(packed.subarray(i, Math.min(packed.length, i + slice)), i + slice >= packed.length);
-    }
-  } catch (error) {
-    throw corrupt(file, `invalid zlib data in the chunk at y ${y}: ${error instanceof Error ? error.message : String(error)}`, error);
-  }
-  if (overflow) throw corrupt(file, `chunk at y ${y} inflates past its declared size of ${rawSize} bytes`);
-  if (written !== rawSize) throw corrupt(file, `chunk at y ${y} inflates to ${written} bytes, expected ${rawSize}`);
+  const t = inflateBounded(packed, rawSize, file, `the chunk at y ${y}`);
   for (let i = 1; i < rawSize; i++) t[i] = (t[i - 1]! + t[i]! - 128) & 0xff;
   const out = new Uint8Array(rawSize);
   const half = (rawSize + 1) >> 1;

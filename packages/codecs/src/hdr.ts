@@ -112,7 +112,9 @@ export function decodeHdr(bytes: Uint8Array, options: HdrDecodeOptions = {}): De
   const data = new Float32Array(width * height * 3);
   const scan = new Uint8Array(innerCount * 4);
   let pos = header.dataOffset;
-  const invExposure = 1 / header.exposure;
+  // 2^(e - 136) / exposure for every exponent byte (e = 0 is black).
+  const scale = new Float64Array(256);
+  for (let e = 1; e < 256; e++) scale[e] = Math.pow(2, e - 136) / header.exposure;
   for (let outer = 0; outer < outerCount; outer++) {
     pos = readScanline(bytes, pos, scan, innerCount, file, outer);
     for (let inner = 0; inner < innerCount; inner++) {
@@ -128,16 +130,11 @@ export function decodeHdr(bytes: Uint8Array, options: HdrDecodeOptions = {}): De
         x = m[1] === '+' ? outer : outerCount - 1 - outer;
         y = m[4] === '-' ? inner : innerCount - 1 - inner;
       }
-      const e = scan[inner * 4 + 3]!;
+      const f = scale[scan[inner * 4 + 3]!]!;
       const o = (y * width + x) * 3;
-      if (e === 0) {
-        data[o] = 0; data[o + 1] = 0; data[o + 2] = 0;
-      } else {
-        const f = Math.pow(2, e - 136) * invExposure;
-        data[o] = scan[inner * 4]! * f;
-        data[o + 1] = scan[inner * 4 + 1]! * f;
-        data[o + 2] = scan[inner * 4 + 2]! * f;
-      }
+      data[o] = scan[inner * 4]! * f;
+      data[o + 1] = scan[inner * 4 + 1]! * f;
+      data[o + 2] = scan[inner * 4 + 2]! * f;
     }
   }
   return { width, height, channels: 3, data, format: 'hdr', issues: countPixelIssues(data) };

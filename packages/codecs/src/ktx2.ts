@@ -5,7 +5,8 @@
  */
 
 import { binary16ToFloat32, decodeB10g11r11, decodeRgb9e5, encodeB10g11r11, encodeRgb9e5, float32ToBinary16 } from '@lightkiln/math';
-import { Unzlib, zlibSync } from 'fflate';
+import { zlibSync } from 'fflate';
+import { inflateBounded } from './zlib.js';
 import { badMagic, CodecError, corrupt, invalidArgument, truncated, unsupported } from './errors.js';
 import { checkByteLength, resolveDecodeLimits, type DecodeLimits } from './image.js';
 
@@ -337,22 +338,5 @@ export function decodeKtx2(bytes: Uint8Array, options: Ktx2DecodeOptions = {}): 
 }
 
 function inflateExactly(packed: Uint8Array, size: number, file: string, level: number): Uint8Array {
-  const out = new Uint8Array(size);
-  let written = 0;
-  let overflow = false;
-  const inflater = new Unzlib((chunk) => {
-    if (written + chunk.length > size) {
-      overflow = true;
-      return;
-    }
-    out.set(chunk, written);
-    written += chunk.length;
-  });
-  try {
-    for (let i = 0; i < packed.length && !overflow; i += 1024) inflater.push(packed.subarray(i, i + 1024), i + 1024 >= packed.length);
-  } catch (error) {
-    throw corrupt(file, `invalid zlib data in level ${level}`, error);
-  }
-  if (overflow || written !== size) throw corrupt(file, `level ${level} inflates to ${overflow ? 'more than' : written} bytes, expected ${size}`);
-  return out;
+  return inflateBounded(packed, size, file, `level ${level}`);
 }

@@ -47,8 +47,40 @@ function smallFloatBits(x: number, mantissaBits: number): number {
   return ((e + 15) << mantissaBits) + (m - one);
 }
 
+const f32 = new Float32Array(1);
+const f32bits = new Uint32Array(f32.buffer);
+
+/**
+ * binary16 bits of a value that is exactly a binary32 number, from its bit pattern (round to nearest
+ * even on the 13 dropped mantissa bits; IEEE 754-2008 sec. 4.3.1).
+ */
+function binary32BitsToBinary16(x: number): number {
+  const sign = (x >>> 16) & 0x8000;
+  const exp = (x >>> 23) & 0xff;
+  let mant = x & 0x7fffff;
+  if (exp === 0xff) return sign | (mant !== 0 ? 0x7e00 : 0x7c00);
+  const e = exp - 112; // rebias 127 -> 15
+  if (e >= 31) return sign | 0x7c00;
+  if (e <= 0) {
+    if (e < -10) return sign; // below half the smallest subnormal
+    mant |= 0x800000;
+    const shift = 14 - e;
+    let half = mant >>> shift;
+    const rem = mant & ((1 << shift) - 1);
+    const halfway = 1 << (shift - 1);
+    if (rem > halfway || (rem === halfway && (half & 1) === 1)) half++;
+    return sign | half;
+  }
+  let half = (e << 10) | (mant >>> 13);
+  const rem = mant & 0x1fff;
+  if (rem > 0x1000 || (rem === 0x1000 && (half & 1) === 1)) half++; // a carry may reach Inf (0x7C00), correctly
+  return sign | half;
+}
+
 /** IEEE 754 binary16 bits of a number, round to nearest even; overflow to +-Inf, NaN to 0x7E00. */
 export function float32ToBinary16(value: number): number {
+  f32[0] = value;
+  if (f32[0] === value) return binary32BitsToBinary16(f32bits[0]!); // exact binary32 values (texels): bit path
   if (Number.isNaN(value)) return 0x7e00;
   const sign = value < 0 || Object.is(value, -0) ? 0x8000 : 0;
   const a = Math.abs(value);
@@ -57,8 +89,18 @@ export function float32ToBinary16(value: number): number {
   return bits >= 0x7c00 ? sign | 0x7c00 : sign | bits;
 }
 
-/** The number an IEEE 754 binary16 bit pattern holds. */
+let halfTable: Float32Array | null = null;
+
+/** The number an IEEE 754 binary16 bit pattern holds (table lookup after the first call). */
 export function binary16ToFloat32(bits: number): number {
+  if (halfTable === null) {
+    halfTable = new Float32Array(65536);
+    for (let h = 0; h < 65536; h++) halfTable[h] = binary16ToNumber(h);
+  }
+  return halfTable[bits & 0xffff]!;
+}
+
+function binary16ToNumber(bits: number): number {
   const sign = bits & 0x8000 ? -1 : 1;
   const e = (bits >>> 10) & 0x1f;
   const m = bits & 0x3ff;

@@ -1,0 +1,48 @@
+/**
+ * Whole bakes: the default recipe on a 2048 x 1024 equirect to a 256^2 cube with every artifact on 2
+ * threads (wall time and share per stage), an unchanged rebake through the cache (target under 3% of the
+ * cold bake), the specular stage on 2 threads against 1 (target >= 1.8x), and peak RSS of that bake and of
+ * a 4096 x 2048 input to 512^2 (each in a process of its own).
+ */
+
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { closeSharedPools, createBaker, MemoryStore } from '@lightkiln/bake';
+import { encodePfm } from '@lightkiln/codecs';
+import { record, runBench, syntheticSky } from './common.js';
+
+interface ChildResult { wallMs: number; timings: Record<string, number>; maxRssMiB: number }
+
+function child(width: number, size: number, threads: number): ChildResult {
+  const script = fileURLToPath(new URL('./bake-child.js', import.meta.url));
+  const r = spawnSync(process.execPath, [script, String(width), String(size), String(threads)], { encoding: 'utf8', timeout: 600_000 });
+  if (r.status !== 0) throw new Error(`bake child failed: ${r.stderr}`);
+  return JSON.parse(r.stdout.trim().split('\n').at(-1)!) as ChildResult;
+}
+
+export async function bakeBench(): Promise<void> {
+  const bytes = encodePfm({ width: 2048, height: 1024, channels: 3, data: syntheticSky(2048, 1024) });
+  const recipe = { input: { bytes, name: 'sky.pfm' }, size: 256 };
+  const cold = createBaker({ threads: 2, cache: false });
+  let timings: Record<string, number> = {};
+  const store = new MemoryStore();
+  const warm = createBaker({ threads: 2, cache: store });
+  await warm.bake(recipe);
+  const results = await runBench('default bake 2048x1024 -> 256^2, 2 threads', {
+    cold: async () => { timings = { ...(await cold.bake(recipe)).manifest.timingsMs }; },
+    'warm (unchanged rebake)': async () => { await warm.bake(recipe); },
+  }, { iterations: 3 });
+  const coldMs = results.cold!.medianMs;
+  record('default bake, cold, 2 threads', coldMs / 1000, 's');
+  for (const [stage, ms] of Object.entries(timings)) if (stage !== 'total') record(`  share ${stage}`, (100 * ms) / timings.total!, '%', `${ms.toFixed(0)} ms`);
+  record('unchanged rebake / cold bake', (100 * results['warm (unchanged rebake)']!.medianMs) / coldMs, '%', `${results['warm (unchanged rebake)']!.medianMs.toFixed(1)} ms, target < 3%`);
+  const one = child(2048, 256, 1);
+  const two = child(2048, 256, 2);
+  record('specular stage speed-up, 2 threads vs 1', one.timings.specular! / two.timings.specular!, 'x', `${one.timings.specular!.toFixed(0)} ms vs ${two.timings.specular!.toFixed(0)} ms, target >= 1.8`);
+  record('peak RSS, 2048x1024 -> 256^2', two.maxRssMiB, 'MiB');
+  const big = child(4096, 512, 2);
+  record('peak RSS, 4096x2048 -> 512^2', big.maxRssMiB, 'MiB', `wall ${(big.wallMs / 1000).toFixed(1)} s`);
+  await cold.close();
+  await warm.close();
+  await closeSharedPools();
+}
