@@ -353,12 +353,13 @@ export class Baker {
     });
   }
 
-  #prepare(raw: Recipe): { recipe: ResolvedRecipe; inputs: InputFile[]; keys: Keys } {
+  #prepare(raw: Recipe): { recipe: ResolvedRecipe; inputs: InputFile[]; inputHashes: string[]; keys: Keys } {
     if (this.#closed) throw new LightkilnError('INVALID_OPTION', 'the baker is closed');
     const recipe = resolveRecipe(raw);
     const inputs = this.#readInputs(recipe, raw);
-    const inputHash = inputs.length === 1 ? sha256Hex(inputs[0]!.bytes) : sha256Hex(new TextEncoder().encode(inputs.map((i) => sha256Hex(i.bytes)).join(',')));
-    return { recipe, inputs, keys: computeKeys(recipe, inputHash) };
+    const inputHashes = inputs.map((i) => sha256Hex(i.bytes));
+    const inputHash = inputs.length === 1 ? inputHashes[0]! : sha256Hex(new TextEncoder().encode(inputHashes.join(',')));
+    return { recipe, inputs, inputHashes, keys: computeKeys(recipe, inputHash) };
   }
 
   /** Reports what a bake of this recipe would read from the cache and what it would compute. */
@@ -403,7 +404,7 @@ export class Baker {
     const started = performance.now();
     try {
       if (options.signal?.aborted) throw aborted(options.signal.reason);
-      const { recipe, inputs, keys } = this.#prepare(raw);
+      const { recipe, inputs, inputHashes, keys } = this.#prepare(raw);
       const outDir = options.outDir;
       if (outDir !== undefined) checkOutputFolder(outDir, recipe.name);
       const cache = new EntryCache(this.#store);
@@ -463,7 +464,7 @@ export class Baker {
         schemaVersion: MANIFEST_SCHEMA_VERSION,
         tool: { name: TOOL_NAME, version: TOOL_VERSION },
         probe: r.name,
-        inputs: inputs.map((i) => ({ path: i.name, byteLength: i.bytes.length, sha256: sha256Hex(i.bytes) })),
+        inputs: inputs.map((i, k) => ({ path: i.name, byteLength: i.bytes.length, sha256: inputHashes[k]! })),
         recipe: r,
         conventions: CONVENTIONS,
         levels: specular.meta.levels,
