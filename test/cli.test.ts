@@ -172,6 +172,26 @@ describe('lightkiln inspect', () => {
   });
 });
 
+describe('lightkiln preview', () => {
+  it('writes the contact sheet with bake --preview and from a manifest, decodable by pngjs', () => {
+    const out = join(work, 'out-preview');
+    const r = run(['bake', skyPath, '--out', out, ...small, '--preview', '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    expect(JSON.parse(r.stdout).artifacts.map((a: { kind: string }) => a.kind)).toContain('preview');
+    const sheet = PNG.sync.read(readFileSync(join(out, 'sky.preview.png')));
+    expect(sheet.width).toBeGreaterThan(500);
+    const file = join(work, 'sheet.png');
+    const p = run(['preview', join(out, 'sky.probe.json'), '--out', file, '--exposure', '1']);
+    expect(p.status, p.stderr).toBe(0);
+    const again = PNG.sync.read(readFileSync(file));
+    expect([again.width, again.height]).toEqual([sheet.width, sheet.height]);
+    // One stop brighter: the sheet's mean brightness rises.
+    const mean = (png: PNG): number => png.data.reduce((a, v) => a + v, 0) / png.data.length;
+    expect(mean(again)).toBeGreaterThan(mean(sheet));
+    expect(run(['preview', join(work, 'nope.json'), '--out', file]).status).toBe(2);
+  });
+});
+
 describe('the demo scene (examples/observatory-dusk)', () => {
   it('generates the sky with our own script and bakes it with the default preset', () => {
     const hdr = join(work, 'dusk.hdr');

@@ -8,7 +8,8 @@
 import { randomBytes } from 'node:crypto';
 import { lstatSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { encodeExr, encodeHdr } from '@lightkiln/codecs';
+import { decodeKtx2, encodeExr, encodeHdr } from '@lightkiln/codecs';
+import { renderContactSheet } from './preview/sheet.js';
 import { getSharedPool, toShared, WorkerPool } from '@lightkiln/pool';
 import { EntryCache, type CacheStats } from './cache/entry.js';
 import { FolderStore, MemoryStore, pruneStore, type CacheStore } from './cache/store.js';
@@ -26,7 +27,7 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 2, level: 1, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1,
+  source: 1, pyramid: 2, level: 1, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1, preview: 1,
 });
 
 export interface BakerOptions {
@@ -52,7 +53,7 @@ export interface BakeRunOptions {
   readonly onProgress?: (progress: BakeProgress) => void;
 }
 
-export type ArtifactKind = 'specular' | 'irradiance' | 'lut' | 'view' | 'manifest';
+export type ArtifactKind = 'specular' | 'irradiance' | 'lut' | 'view' | 'preview' | 'manifest';
 
 export interface BakedArtifact {
   readonly kind: ArtifactKind;
@@ -109,6 +110,7 @@ interface Keys {
   readonly irradianceFile: string;
   readonly lutFile: string;
   readonly views: readonly { name: string; key: string; kind: 'mirror' | 'irradiance'; format: 'hdr' | 'exr' }[];
+  readonly preview: string;
 }
 
 function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
@@ -131,7 +133,8 @@ function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
     name: `${recipe.name}.${kind}.${format}`, kind, format,
     key: stageKey('view', V.view!, { of: kind === 'mirror' ? levels[0] : irradianceCube, format }),
   })));
-  return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views };
+  const preview = stageKey('preview', V.preview!, { specularFile, irradianceFile, lutFile: recipe.dfg.enabled ? lutFile : null, roughness: recipe.roughness });
+  return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views, preview };
 }
 
 function toF64(a: unknown): Float64Array {
@@ -372,9 +375,10 @@ export class Baker {
       { kind: 'irradiance', name: `${recipe.name}.irradiance.ktx2`, key: keys.irradianceFile },
       ...(recipe.dfg.enabled ? [{ kind: 'lut', name: `${recipe.name}.dfg.ktx2`, key: keys.lutFile }] : []),
       ...keys.views.map((v) => ({ kind: 'view', name: v.name, key: v.key })),
+      ...(recipe.output.preview ? [{ kind: 'preview', name: `${recipe.name}.preview.png`, key: keys.preview }] : []),
     ];
     const artifacts = await Promise.all(files.map(async (f) => ({ ...f, cached: await has(f.key), willCompute: false })));
-    const need = (kind: string): boolean => artifacts.some((a) => !a.cached && (a.kind === kind || (kind === 'irradiance' && a.kind === 'view') || (kind === 'specular' && a.kind === 'view')));
+    const need = (kind: string): boolean => artifacts.some((a) => !a.cached && (a.kind === kind || ((kind === 'irradiance' || kind === 'specular') && (a.kind === 'view' || a.kind === 'preview')) || (kind === 'lut' && a.kind === 'preview')));
     const levelItems = await Promise.all(keys.levels.map(async (key, m) => ({ kind: `level ${m}`, key, cached: await has(key), willCompute: false })));
     const levelsComputed = need('specular') ? levelItems.map((l) => ({ ...l, willCompute: !l.cached })) : levelItems;
     const shItem = { kind: 'sh', key: keys.sh, cached: await has(keys.sh), willCompute: false };
@@ -449,6 +453,13 @@ export class Baker {
           return { bytes: view.format === 'hdr' ? encodeHdr(image) : encodeExr(image, { pixelType: 'half', compression: 'zip' }), meta: {} };
         }) });
       }
+      const preview = r.output.preview ? await run.file<Record<string, never>>(keys.preview, async () => ({
+        bytes: renderContactSheet({
+          probe: r.name, roughness: r.roughness,
+          specular: decodeKtx2(specular.bytes), irradiance: decodeKtx2(irradiance.bytes), lut: lut === null ? null : decodeKtx2(lut.bytes),
+        }),
+        meta: {},
+      })) : null;
       if (options.signal?.aborted) throw aborted(options.signal.reason);
       const artifacts: BakedArtifact[] = [];
       const add = (kind: ArtifactKind, name: string, format: string, file: { bytes: Uint8Array; fromCache: boolean }): void => {
@@ -458,6 +469,7 @@ export class Baker {
       add('irradiance', `${r.name}.irradiance.ktx2`, `ktx2/${r.output.irradianceFormat}`, irradiance);
       if (lut !== null) add('lut', `${r.name}.dfg.ktx2`, lut.meta.channels.length === 2 ? 'ktx2/rg16f' : 'ktx2/rgba16f', lut);
       for (const { view, file } of views) add('view', view.name, view.format, file);
+      if (preview !== null) add('preview', `${r.name}.preview.png`, 'png', preview);
       const manifestArtifacts: ManifestArtifact[] = artifacts.map((a) => ({ kind: a.kind as ManifestArtifact['kind'], path: a.name, format: a.format, byteLength: a.bytes.length, sha256: a.sha256 }));
       run.timings.total = performance.now() - started;
       const manifest: Manifest = {

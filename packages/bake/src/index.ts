@@ -15,3 +15,6 @@ export { cubeCross } from './stages/encode.js';
 export { closeSharedPools, getSharedPool, WorkerPool } from '@lightkiln/pool';
 export { inspectBytes } from './inspect.js';
 export type { FileSummary, ValueRange } from './inspect.js';
+export { previewFromManifest } from './preview/index.js';
+export { renderContactSheet } from './preview/sheet.js';
+export type { PreviewInput } from './preview/sheet.js';

@@ -19,7 +19,7 @@ export interface ManifestLevel {
 }
 
 export interface ManifestArtifact {
-  readonly kind: 'specular' | 'irradiance' | 'lut' | 'view';
+  readonly kind: 'specular' | 'irradiance' | 'lut' | 'view' | 'preview';
   readonly path: string;
   readonly format: string;
   readonly byteLength: number;

@@ -91,6 +91,8 @@ export interface Recipe {
     readonly supercompression?: 'none' | 'zlib';
     /** Extra inspection files of level 0 and the irradiance cube (horizontal cross). Default none. */
     readonly views?: readonly ('hdr' | 'exr')[];
+    /** Write `<name>.preview.png`, the contact sheet (levels, irradiance, shaded spheres, DFG). Default false. */
+    readonly preview?: boolean;
   };
   readonly sanitize?: {
     /** NaN and infinite pixels: 'repair' (NaN -> 0, +Inf -> maxRadiance) or 'reject'. Default 'repair'. */
@@ -128,7 +130,7 @@ export interface ResolvedRecipe {
   readonly quality: 'sampled' | 'reference';
   readonly irradiance: { readonly shWindow: ShWindow; readonly shWindowWidth: number; readonly cubeSize: number; readonly cubeSource: 'convolution' | 'sh9' };
   readonly dfg: { readonly enabled: boolean; readonly size: number; readonly samples: number; readonly multiscatter: boolean; readonly cloth: boolean };
-  readonly output: { readonly specularFormat: CubeFormat; readonly irradianceFormat: CubeFormat; readonly supercompression: 'none' | 'zlib'; readonly views: readonly ('hdr' | 'exr')[] };
+  readonly output: { readonly specularFormat: CubeFormat; readonly irradianceFormat: CubeFormat; readonly supercompression: 'none' | 'zlib'; readonly views: readonly ('hdr' | 'exr')[]; readonly preview: boolean };
   readonly sanitize: { readonly nonFinite: 'repair' | 'reject'; readonly negative: 'clamp' | 'reject'; readonly maxRadiance: number };
   readonly limits: { readonly maxInputBytes: number; readonly maxInputPixels: number; readonly maxSamples: number; readonly maxWork: number };
 }
@@ -175,7 +177,8 @@ const schema = z.object({
     irradianceFormat: cubeFormat.default('rgba16f'),
     supercompression: z.enum(['none', 'zlib']).default('none'),
     views: z.array(z.enum(['hdr', 'exr'])).default([]),
-  }).strict().default({ specularFormat: 'rgba16f', irradianceFormat: 'rgba16f', supercompression: 'none', views: [] }),
+    preview: z.boolean().default(false),
+  }).strict().default({ specularFormat: 'rgba16f', irradianceFormat: 'rgba16f', supercompression: 'none', views: [], preview: false }),
   sanitize: z.object({
     nonFinite: z.enum(['repair', 'reject']).default('repair'),
     negative: z.enum(['clamp', 'reject']).default('clamp'),

@@ -7,6 +7,7 @@ import { bakeCommand } from './commands/bake.js';
 import { cacheCommand } from './commands/cache.js';
 import { inspectCommand } from './commands/inspect.js';
 import { lutCommand } from './commands/lut.js';
+import { previewCommand } from './commands/preview.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, type CommandContext } from './io.js';
 import { USAGE } from './usage.js';
 
@@ -15,6 +16,7 @@ const COMMANDS: Record<string, (argv: readonly string[], ctx: CommandContext) =>
   lut: lutCommand,
   inspect: inspectCommand,
   cache: cacheCommand,
+  preview: previewCommand,
 };
 
 export async function main(argv: readonly string[]): Promise<number> {

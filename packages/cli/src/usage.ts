@@ -7,6 +7,7 @@ usage:
   lightkiln bake <input...> --out <dir> [options]   bake probes (specular cube, irradiance, DFG table, manifest)
   lightkiln lut --out <file.ktx2> [options]        bake the DFG lookup table alone
   lightkiln inspect <file...>                      summarise a .ktx2, .hdr, .exr, .pfm, .png or manifest
+  lightkiln preview <probe.json> --out <file.png>  render the contact sheet of a baked probe
   lightkiln cache <stats|verify|prune|clear>       look after the bake cache
 
 common options: --json  --quiet  --threads N  --no-cache  --cache-dir D
@@ -24,6 +25,7 @@ run "lightkiln <command> --help" for a command's options`,
   --no-filtered        plain importance sampling (no source mip per sample)
   --zlib               zlib supercompression in the KTX 2.0 files
   --views              also write .hdr crosses of level 0 and the irradiance
+  --preview            also write <name>.preview.png, the contact sheet
   --name NAME          probe name (one input only)                             default input file name
   --recipe FILE        JSON recipe fields applied to every input (flags win)
   --batch FILE         JSON list of recipes (input paths relative to the file)
@@ -42,6 +44,7 @@ run "lightkiln <command> --help" for a command's options`,
   --zlib           zlib supercompression
   --threads N, --no-cache, --cache-dir DIR, --json, --quiet`,
   inspect: `usage: lightkiln inspect <file...> [--json]`,
+  preview: `usage: lightkiln preview <probe.probe.json> --out <file.png> [--exposure EV] [--json]`,
   cache: `usage: lightkiln cache stats|verify|clear [--cache-dir DIR] [--json]
        lightkiln cache prune --max-bytes N [--cache-dir DIR] [--json]`,
 };
