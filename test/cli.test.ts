@@ -192,6 +192,20 @@ describe('lightkiln preview', () => {
   });
 });
 
+describe('lightkiln sweep', () => {
+  it('writes CSV, Markdown, SVG and JSON and prints one JSON document', () => {
+    const out = join(work, 'out-sweep');
+    const r = run(['sweep', skyPath, '--out', out, '--size', '8', '--budgets', '16,256,default', '--methods', 'plain,filtered', '--repeats', '1', '--json', '--quiet']);
+    expect(r.status, r.stderr).toBe(0);
+    const doc = JSON.parse(r.stdout);
+    expect(doc.artifacts.map((a: { kind: string }) => a.kind)).toEqual(['sweep-csv', 'sweep-markdown', 'sweep-svg', 'sweep-json']);
+    expect(doc.points).toHaveLength(6);
+    expect(readFileSync(join(out, 'sky.sweep.svg'), 'utf8')).toContain('<svg');
+    expect(run(['sweep', skyPath, '--out', out, '--budgets', '16,lots']).status).toBe(2);
+    expect(run(['sweep', skyPath, '--out', out, '--methods', 'guess']).status).toBe(2);
+  });
+});
+
 describe('the demo scene (examples/observatory-dusk)', () => {
   it('generates the sky with our own script and bakes it with the default preset', () => {
     const hdr = join(work, 'dusk.hdr');

@@ -18,3 +18,5 @@ export type { FileSummary, ValueRange } from './inspect.js';
 export { previewFromManifest } from './preview/index.js';
 export { renderContactSheet } from './preview/sheet.js';
 export type { PreviewInput } from './preview/sheet.js';
+export { sweepBudgets, sweepReport, SWEEP_METHODS } from './sweep.js';
+export type { SweepOptions, SweepPoint, SweepResult, SweepSummary, SweepMethod } from './sweep.js';

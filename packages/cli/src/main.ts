@@ -8,6 +8,7 @@ import { cacheCommand } from './commands/cache.js';
 import { inspectCommand } from './commands/inspect.js';
 import { lutCommand } from './commands/lut.js';
 import { previewCommand } from './commands/preview.js';
+import { sweepCommand } from './commands/sweep.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, type CommandContext } from './io.js';
 import { USAGE } from './usage.js';
 
@@ -17,6 +18,7 @@ const COMMANDS: Record<string, (argv: readonly string[], ctx: CommandContext) =>
   inspect: inspectCommand,
   cache: cacheCommand,
   preview: previewCommand,
+  sweep: sweepCommand,
 };
 
 export async function main(argv: readonly string[]): Promise<number> {

@@ -9,6 +9,7 @@ usage:
   lightkiln inspect <file...>                      summarise a .ktx2, .hdr, .exr, .pfm, .png or manifest
   lightkiln preview <probe.json> --out <file.png>  render the contact sheet of a baked probe
   lightkiln cache <stats|verify|prune|clear>       look after the bake cache
+  lightkiln sweep <input> --out <dir>              error versus time for sample budgets and methods
 
 common options: --json  --quiet  --threads N  --no-cache  --cache-dir D
 run "lightkiln <command> --help" for a command's options`,
@@ -44,6 +45,14 @@ run "lightkiln <command> --help" for a command's options`,
   --zlib           zlib supercompression
   --threads N, --no-cache, --cache-dir DIR, --json, --quiet`,
   inspect: `usage: lightkiln inspect <file...> [--json]`,
+  sweep: `usage: lightkiln sweep <input> --out <dir> [options]
+
+  --size N          level-0 face size (the reference convolution costs size^4)   default 64
+  --budgets LIST    samples per texel, comma-separated, and/or "default"          default 16,32,...,2048,default
+  --methods LIST    plain, filtered, filtered-rotated                             default all
+  --repeats N       timed runs per point (median reported)                        default 3
+  --lod-bias B      filtered importance sampling bias (levels)                    default 0.5
+  --threads N, --json, --quiet`,
   preview: `usage: lightkiln preview <probe.probe.json> --out <file.png> [--exposure EV] [--json]`,
   cache: `usage: lightkiln cache stats|verify|clear [--cache-dir DIR] [--json]
        lightkiln cache prune --max-bytes N [--cache-dir DIR] [--json]`,

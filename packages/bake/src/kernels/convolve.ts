@@ -1,9 +1,10 @@
 /**
- * Brute-force convolutions over every texel of a source cube level: the `reference` specular mode (ground
- * truth for tests and the sample-budget sweep) and the direct cosine convolution of the irradiance cube.
+ * Brute-force convolutions over a source cube level: the `reference` specular mode (ground truth for tests
+ * and the sample-budget sweep) and the direct cosine convolution of the irradiance cube. For the latter,
  * buffers.srcDirs holds per source texel (x, y, z, solid angle) as float64 (exact texel solid angles).
  */
 
+import { CUBE_FACE_BASIS } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
 
 export interface ConvolveParams {
@@ -14,8 +15,6 @@ export interface ConvolveParams {
   readonly size: number;
   readonly levelBegin: number;
   readonly dstOffset: number;
-  /** GGX alpha for the specular reference; unused for irradiance. */
-  readonly alpha: number;
 }
 
 function centreDirection(out: Float64Array, face: number, tx: number, ty: number, size: number): void {
@@ -38,20 +37,40 @@ function centreDirection(out: Float64Array, face: number, tx: number, ty: number
   out[2] = z * inv;
 }
 
+export interface ReferenceParams {
+  /** Face size of the level-0 cube (at float offset 0 of buffers.pyramid). */
+  readonly srcSize: number;
+  /** Quadrature points per axis inside each level-0 texel near the lobe peak (1..8). */
+  readonly subdivision: number;
+  /** Texels whose centre lies within this cosine of n (the lobe peak, n = v) get the fine points. */
+  readonly cosNear: number;
+  readonly size: number;
+  readonly levelBegin: number;
+  readonly dstOffset: number;
+  readonly alpha: number;
+}
+
 /**
- * Reference LD(n) = sum_j L_j D(h_j) (n.l_j) dOmega_j / sum_j D(h_j) (n.l_j) dOmega_j with n = v,
- * where (n.h)^2 = (1 + n.l) / 2 (half-angle identity) and D is GGX (Walter et al. 2007).
+ * Reference LD(n) with n = v: a deterministic quadrature of
+ * integral L(l) D(h) (n.l) dl / integral D(h) (n.l) dl over the whole sphere: one point per level-0
+ * texel, or subdivision^2 points in texels near the lobe peak where D changes within a texel; each point
+ * weighted by its solid angle (face area element (1 + u^2 + v^2)^(-3/2) du dv) and reading L with the same
+ * in-face bilinear fetch as the sampled kernel, so that plain importance sampling converges to it.
+ * (n.h)^2 = (1 + n.l) / 2 (half-angle identity); GGX D (Walter et al. 2007; 1/pi cancels in the ratio).
  */
-export function referenceSpecular(buffers: SharedBuffers, begin: number, end: number, params: ConvolveParams): void {
+export function referenceSpecular(buffers: SharedBuffers, begin: number, end: number, params: ReferenceParams): void {
   const pyr = buffers.pyramid as Float64Array;
-  const dirs = buffers.srcDirs as Float64Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;
   const perFace = size * size;
   const a2 = params.alpha * params.alpha;
-  const count = params.srcTexels;
-  const src0 = params.srcOffset;
+  const N = params.srcSize;
+  const S = params.subdivision;
+  const cosNear = params.cosNear;
+  const du = 2 / N;
+  const B = CUBE_FACE_BASIS;
   const n = new Float64Array(3);
+  const acc = new Float64Array(4);
   for (let item = begin; item < end; item++) {
     const local = item - params.levelBegin;
     const face = (local / perFace) | 0;
@@ -61,27 +80,73 @@ export function referenceSpecular(buffers: SharedBuffers, begin: number, end: nu
     const nx = n[0]!;
     const ny = n[1]!;
     const nz = n[2]!;
-    let r = 0;
-    let g = 0;
-    let b = 0;
-    let wsum = 0;
-    for (let j = 0; j < count; j++) {
-      const nl = nx * dirs[4 * j]! + ny * dirs[4 * j + 1]! + nz * dirs[4 * j + 2]!;
-      if (nl <= 0) continue;
-      const nh2 = (1 + nl) * 0.5;
-      const d = nh2 * (a2 - 1) + 1;
-      const w = (a2 / (d * d)) * nl * dirs[4 * j + 3]!; // 1/pi cancels in the ratio
-      const o = src0 + j * 3;
-      r += pyr[o]! * w;
-      g += pyr[o + 1]! * w;
-      b += pyr[o + 2]! * w;
-      wsum += w;
+    acc[0] = 0; acc[1] = 0; acc[2] = 0; acc[3] = 0;
+    for (let f = 0; f < 6; f++) {
+      for (let j = 0; j < N; j++) {
+        for (let i = 0; i < N; i++) {
+          const u = (i + 0.5) * du - 1;
+          const v = (j + 0.5) * du - 1;
+          const o9 = f * 9;
+          const dx = B[o9]! + u * B[o9 + 3]! + v * B[o9 + 6]!;
+          const dy = B[o9 + 1]! + u * B[o9 + 4]! + v * B[o9 + 7]!;
+          const dz = B[o9 + 2]! + u * B[o9 + 5]! + v * B[o9 + 8]!;
+          const dot = nx * dx + ny * dy + nz * dz;
+          const inv = 1 / Math.sqrt(1 + u * u + v * v);
+          if (S > 1 && dot * inv > cosNear) {
+            const sub = du / S;
+            for (let sj = 0; sj < S; sj++) {
+              for (let si = 0; si < S; si++) {
+                referencePoint(acc, pyr, N, f, u + (si + 0.5 - S / 2) * sub, v + (sj + 0.5 - S / 2) * sub, nx, ny, nz, a2, 1 / (S * S));
+              }
+            }
+          } else if (dot > 0) {
+            referencePoint(acc, pyr, N, f, u, v, nx, ny, nz, a2, 1);
+          }
+        }
+      }
     }
     const o = params.dstOffset + local * 3;
-    dst[o] = r / wsum;
-    dst[o + 1] = g / wsum;
-    dst[o + 2] = b / wsum;
+    dst[o] = acc[0]! / acc[3]!;
+    dst[o + 1] = acc[1]! / acc[3]!;
+    dst[o + 2] = acc[2]! / acc[3]!;
   }
+}
+
+/** Adds one quadrature point (face f at (u, v), relative area `area`) to acc = (r, g, b, weight). */
+function referencePoint(acc: Float64Array, pyr: Float64Array, N: number, f: number, u: number, v: number, nx: number, ny: number, nz: number, a2: number, area: number): void {
+  const B = CUBE_FACE_BASIS;
+  const o9 = f * 9;
+  const dx = B[o9]! + u * B[o9 + 3]! + v * B[o9 + 6]!;
+  const dy = B[o9 + 1]! + u * B[o9 + 4]! + v * B[o9 + 7]!;
+  const dz = B[o9 + 2]! + u * B[o9 + 5]! + v * B[o9 + 8]!;
+  const dot = nx * dx + ny * dy + nz * dz;
+  if (dot <= 0) return;
+  const inv = 1 / Math.sqrt(1 + u * u + v * v);
+  const nl = dot * inv;
+  const nh2 = (1 + nl) * 0.5;
+  const dd = nh2 * (a2 - 1) + 1;
+  const w = (a2 / (dd * dd)) * nl * inv * inv * inv * area; // D * n.l * dOmega (up to a constant)
+  let fx = (u + 1) * 0.5 * N - 0.5;
+  let fy = (v + 1) * 0.5 * N - 0.5;
+  const max = N - 1;
+  if (fx < 0) fx = 0; else if (fx > max) fx = max;
+  if (fy < 0) fy = 0; else if (fy > max) fy = max;
+  const x0 = fx | 0;
+  const y0 = fy | 0;
+  const ex = fx - x0;
+  const ey = fy - y0;
+  const i00 = f * N * N * 3 + (y0 * N + x0) * 3;
+  const i10 = x0 < max ? i00 + 3 : i00;
+  const i01 = y0 < max ? i00 + N * 3 : i00;
+  const i11 = i01 + i10 - i00;
+  const w11 = ex * ey * w;
+  const w10 = ex * w - w11;
+  const w01 = ey * w - w11;
+  const w00 = w - ex * w - w01;
+  acc[0] = acc[0]! + pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
+  acc[1] = acc[1]! + pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
+  acc[2] = acc[2]! + pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
+  acc[3] = acc[3]! + w;
 }
 
 /**

@@ -74,7 +74,7 @@ export async function irradianceCube(pyramid: Pyramid, size: number, source: 'co
   const n = pyramid.sizes[level]!;
   const dirs = sourceDirections(pyramid, level);
   const dst = sharedFloat32(texels * 3);
-  const params: ConvolveParams = { srcOffset: pyramid.offsets[level]!, srcTexels: 6 * n * n, size, levelBegin: 0, dstOffset: 0, alpha: 0 };
+  const params: ConvolveParams = { srcOffset: pyramid.offsets[level]!, srcTexels: 6 * n * n, size, levelBegin: 0, dstOffset: 0 };
   await ctx.pool.run({
     kernel: kernel('convolveIrradiance'),
     buffers: { pyramid: pyramid.data, srcDirs: dirs, dst },

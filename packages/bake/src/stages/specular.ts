@@ -8,7 +8,7 @@ import {
   alphaFromPerceptualRoughness, cubeFaceSolidAngleTable, cubeTexelCenterDirection, FOUR_PI, ggxD, hammersleyPoint, luminance, rotateUnit, rotationOffsetsForSeed, sampleGgxHalfVector,
 } from '@lightkiln/math';
 import { sharedFloat32, sharedFloat64, sharedInt32 } from '@lightkiln/pool';
-import type { ConvolveParams } from '../kernels/convolve.js';
+import type { ReferenceParams } from '../kernels/convolve.js';
 import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
 import { levelView, type Pyramid } from './pyramid.js';
@@ -189,27 +189,44 @@ export function sourceDirections(pyramid: Pyramid, level: number): Float64Array 
   return out;
 }
 
-/** The `reference` mode: brute-force GGX convolution of the level-0 cube for each requested level. */
+/**
+ * Quadrature of the reference for one level: near the lobe peak, points per level-0 texel and axis
+ * spaced at most 0.15 of the lobe width (about 2 alpha radians in l) apart (1..8), inside a cone of
+ * 5 lobe widths plus two texels around n; one point per texel elsewhere (D varies slowly there).
+ */
+export function referenceQuadrature(alpha: number, srcSize: number): { subdivision: number; cosNear: number } {
+  const texelAngle = 2 / srcSize;
+  const lobe = 2 * alpha;
+  const subdivision = Math.max(1, Math.min(8, Math.ceil(texelAngle / (0.15 * lobe))));
+  return { subdivision, cosNear: Math.cos(Math.min(Math.PI, 5 * lobe + 2 * texelAngle)) };
+}
+
+/** The `reference` mode: brute-force GGX quadrature over the level-0 cube for each requested level. */
 async function referenceLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext): Promise<LevelResult[]> {
-  const dirs = sourceDirections(pyramid, 0);
-  const srcTexels = 6 * pyramid.sizes[0]! ** 2;
+  const srcSize = pyramid.sizes[0]!;
   let texels = 0;
   const segments = [];
-  const segmentParams: ConvolveParams[] = [];
+  const segmentParams: ReferenceParams[] = [];
+  const points: number[] = [];
   for (const req of requests) {
-    const params: ConvolveParams = { srcOffset: 0, srcTexels, size: req.size, levelBegin: texels, dstOffset: texels * 3, alpha: alphaFromPerceptualRoughness(req.roughness) };
+    const alpha = alphaFromPerceptualRoughness(req.roughness);
+    const { subdivision, cosNear } = referenceQuadrature(alpha, srcSize);
+    const params: ReferenceParams = { srcSize, subdivision, cosNear, size: req.size, levelBegin: texels, dstOffset: texels * 3, alpha };
+    const nearFraction = (1 - cosNear) / 2; // share of the sphere that gets the fine points
+    const cost = Math.round(6 * srcSize * srcSize * (1 + nearFraction * subdivision * subdivision));
+    points.push(cost);
     for (let f = 0; f < 6; f++) {
-      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: srcTexels, rowLength: req.size, label: `reference level ${req.level} face ${f}` });
+      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: cost, rowLength: req.size, label: `reference level ${req.level} face ${f}` });
       segmentParams.push(params);
     }
     texels += 6 * req.size * req.size;
   }
   const dst = sharedFloat32(texels * 3);
-  await ctx.pool.run({ kernel: kernel('referenceSpecular'), buffers: { pyramid: pyramid.data, srcDirs: dirs, dst }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  await ctx.pool.run({ kernel: kernel('referenceSpecular'), buffers: { pyramid: pyramid.data, dst }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
   return requests.map((req, r) => {
     const p = segmentParams[r * 6]!;
     const n = 6 * req.size * req.size;
-    return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: srcTexels, relativeErrorEstimate: 0 };
+    return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: points[r]!, relativeErrorEstimate: 0 };
   });
 }
 
