@@ -3,6 +3,8 @@
 import { writeReport } from './common.js';
 import { bakeBench } from './bake.bench.js';
 import { codecsBench } from './codecs.bench.js';
+import { kernelsBench } from './kernels.bench.js';
+import { sweepBench } from './sweep.bench.js';
 import { mathBench } from './math.bench.js';
 import { poolBench } from './pool.bench.js';
 import { specularBench } from './specular.bench.js';
@@ -10,9 +12,11 @@ import { specularBench } from './specular.bench.js';
 const suites: Record<string, () => Promise<void>> = {
   math: mathBench,
   specular: specularBench,
+  kernels: kernelsBench,
   pool: poolBench,
   codecs: codecsBench,
   bake: bakeBench,
+  sweep: sweepBench,
 };
 
 const wanted = process.argv.slice(2);
