@@ -34,9 +34,8 @@ function baseline(pyramid: Pyramid, set: SampleSet, size: number, dst: Float32Ar
             basis[1]! * lx + basis[4]! * ly + n[1]! * lz,
             basis[2]! * lx + basis[5]! * ly + n[2]! * lz);
           const q = k * SPECULAR_LEVEL_STRIDE;
-          const frac = samples[o + 4]!;
-          bilinear(acc, pyramid.data, lv[q]!, lv[q + 1]!, sel[0]!, sel[1]!, sel[2]!, w * (1 - frac));
-          if (frac > 0) bilinear(acc, pyramid.data, lv[q + 2]!, lv[q + 3]!, sel[0]!, sel[1]!, sel[2]!, w * frac);
+          bilinear(acc, pyramid.data, lv[q]!, lv[q + 1]!, sel[0]!, sel[1]!, sel[2]!, samples[o + 4]!);
+          if (samples[o + 5]! > 0) bilinear(acc, pyramid.data, lv[q + 2]!, lv[q + 3]!, sel[0]!, sel[1]!, sel[2]!, samples[o + 5]!);
           wsum += w;
         }
         const t = ((face * size + y) * size + x) * 3;

@@ -27,7 +27,7 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 2, level: 2, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1, preview: 1,
+  source: 1, pyramid: 2, level: 3, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1, preview: 1,
 });
 
 export interface BakerOptions {

@@ -4,13 +4,13 @@
  * reads the source pyramid at its own level of detail, trilinearly (bilinear on two levels), so bright
  * small sources are integrated instead of aliased (Krivanek & Colbert 2008, "Real-time Shading with
  * Filtered Importance Sampling", CGF 27(4)). The level's sample set is the same for every texel and is
- * precomputed (see stages/specular.ts): per sample (lx, ly, lz, NoL, frac) as float64 and
+ * precomputed (see stages/specular.ts): per sample (lx, ly, lz, NoL, (1 - frac) NoL, frac NoL) as float64 and
  * (offset0, size0, offset1, size1) of its two source levels as int32 (integer index math stays integral).
  */
 
 import type { SharedBuffers } from '@lightkiln/pool';
 
-export const SPECULAR_SAMPLE_STRIDE = 5;
+export const SPECULAR_SAMPLE_STRIDE = 6;
 export const SPECULAR_LEVEL_STRIDE = 4;
 
 export interface SpecularParams {
@@ -90,7 +90,7 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
     let b = 0;
     let w2y = 0;
     let w2yy = 0;
-    for (let k = s0, q = l0; k < s1; k += 5, q += 4) {
+    for (let k = s0, q = l0; k < s1; k += 6, q += 4) {
       const lx = S[k]!;
       const ly = S[k + 1]!;
       const lz = S[k + 2]!;
@@ -119,7 +119,6 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
       const im = 0.5 / ma;
       const fs = sc * im + 0.5;
       const ft = tc * im + 0.5;
-      const frac = S[k + 4]!;
       // Level l0 with weight (1 - frac) w, level l1 with weight frac w (when frac > 0); the NoL weight w
       // is folded into the bilinear weights, so sr, sg, sb are w times the sample's radiance.
       const n0 = L[q + 1]!;
@@ -136,7 +135,7 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
       let i10 = x0 < max0 ? (i00 + 3) | 0 : i00;
       let i01 = y0 < max0 ? (i00 + n0 * 3) | 0 : i00;
       let i11 = (i01 + i10 - i00) | 0;
-      const wl = (1 - frac) * w;
+      const wl = S[k + 4]!;
       let w11 = ex * ey * wl;
       let w10 = ex * wl - w11;
       let w01 = ey * wl - w11;
@@ -144,7 +143,8 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
       let sr = pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
       let sg = pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
       let sb = pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
-      if (frac > 0) {
+      const wf = S[k + 5]!;
+      if (wf > 0) {
         const n1 = L[q + 3]!;
         const max1 = (n1 - 1) | 0;
         fx = fs * n1 - 0.5;
@@ -159,7 +159,6 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
         i10 = x0 < max1 ? (i00 + 3) | 0 : i00;
         i01 = y0 < max1 ? (i00 + n1 * 3) | 0 : i00;
         i11 = (i01 + i10 - i00) | 0;
-        const wf = frac * w;
         w11 = ex * ey * wf;
         w10 = ex * wf - w11;
         w01 = ey * wf - w11;

@@ -21,7 +21,7 @@ export interface SampleSetOptions {
   readonly rotationSeed: number;
 }
 
-/** A level's sample set: per kept sample (lx, ly, lz, NoL, frac) and (offset0, size0, offset1, size1). */
+/** A level's sample set: per kept sample (lx, ly, lz, NoL, (1 - f) NoL, f NoL) and (offset0, size0, offset1, size1). */
 export interface SampleSet {
   readonly directions: Float64Array;
   readonly levels: Int32Array;
@@ -70,7 +70,9 @@ export function buildSampleSet(alpha: number, pyramid: Pyramid, options: SampleS
     out[o + 1] = ly;
     out[o + 2] = lz;
     out[o + 3] = lz;
-    out[o + 4] = l1 === l0 ? 0 : lod - l0;
+    const frac = l1 === l0 ? 0 : lod - l0;
+    out[o + 4] = (1 - frac) * lz;
+    out[o + 5] = frac * lz;
     const q = kept * SPECULAR_LEVEL_STRIDE;
     lv[q] = pyramid.offsets[l0]!;
     lv[q + 1] = pyramid.sizes[l0]!;
