@@ -3,14 +3,12 @@
  * the overhead per tile of an empty kernel (target < 50 us), from the pool's own test kernels.
  */
 
-import { fileURLToPath } from 'node:url';
 import { sharedFloat32, WorkerPool } from '@lightkiln/pool';
 import { record, runBench } from './common.js';
 
 const moduleUrl = new URL('../../packages/pool/test/fixtures/kernels.mjs', import.meta.url).href;
 
 export async function poolBench(): Promise<void> {
-  void fileURLToPath;
   const n = 6 * 64 * 64;
   const src = sharedFloat32(n);
   const dst = sharedFloat32(n);

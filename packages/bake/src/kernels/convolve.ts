@@ -6,6 +6,7 @@
 
 import { CUBE_FACE_BASIS } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
+import { texelCentreDirection } from './texel.js';
 
 export interface ConvolveParams {
   /** Float offset of the source level in buffers.pyramid and its texel count. */
@@ -15,26 +16,6 @@ export interface ConvolveParams {
   readonly size: number;
   readonly levelBegin: number;
   readonly dstOffset: number;
-}
-
-function centreDirection(out: Float64Array, face: number, tx: number, ty: number, size: number): void {
-  const u = (2 * (tx + 0.5)) / size - 1;
-  const v = (2 * (ty + 0.5)) / size - 1;
-  let x: number;
-  let y: number;
-  let z: number;
-  switch (face) {
-    case 0: x = 1; y = -v; z = -u; break;
-    case 1: x = -1; y = -v; z = u; break;
-    case 2: x = u; y = 1; z = v; break;
-    case 3: x = u; y = -1; z = -v; break;
-    case 4: x = u; y = -v; z = 1; break;
-    default: x = -u; y = -v; z = -1; break;
-  }
-  const inv = 1 / Math.sqrt(x * x + y * y + z * z);
-  out[0] = x * inv;
-  out[1] = y * inv;
-  out[2] = z * inv;
 }
 
 export interface ReferenceParams {
@@ -62,7 +43,6 @@ export function referenceSpecular(buffers: SharedBuffers, begin: number, end: nu
   const pyr = buffers.pyramid as Float64Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;
-  const perFace = size * size;
   const a2 = params.alpha * params.alpha;
   const N = params.srcSize;
   const S = params.subdivision;
@@ -73,10 +53,7 @@ export function referenceSpecular(buffers: SharedBuffers, begin: number, end: nu
   const acc = new Float64Array(4);
   for (let item = begin; item < end; item++) {
     const local = item - params.levelBegin;
-    const face = (local / perFace) | 0;
-    const rem = local - face * perFace;
-    const ty = (rem / size) | 0;
-    centreDirection(n, face, rem - ty * size, ty, size);
+    texelCentreDirection(n, local, size);
     const nx = n[0]!;
     const ny = n[1]!;
     const nz = n[2]!;
@@ -159,16 +136,12 @@ export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: n
   const dirs = buffers.srcDirs as Float64Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;
-  const perFace = size * size;
   const count = params.srcTexels;
   const src0 = params.srcOffset;
   const n = new Float64Array(3);
   for (let item = begin; item < end; item++) {
     const local = item - params.levelBegin;
-    const face = (local / perFace) | 0;
-    const rem = local - face * perFace;
-    const ty = (rem / size) | 0;
-    centreDirection(n, face, rem - ty * size, ty, size);
+    texelCentreDirection(n, local, size);
     const nx = n[0]!;
     const ny = n[1]!;
     const nz = n[2]!;

@@ -9,6 +9,7 @@
  */
 
 import type { SharedBuffers } from '@lightkiln/pool';
+import { texelCentreDirection } from './texel.js';
 
 export const SPECULAR_SAMPLE_STRIDE = 6;
 export const SPECULAR_LEVEL_STRIDE = 4;
@@ -44,7 +45,7 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
   const dst = buffers.dst as Float32Array;
   const err = buffers.err as Float32Array;
   const size = params.size;
-  const perFace = size * size;
+  const centre = new Float64Array(3);
   const levelBegin = params.levelBegin;
   const dstOffset = params.dstOffset;
   const s0 = params.sampleOffset * SPECULAR_SAMPLE_STRIDE;
@@ -55,26 +56,10 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
   const w2 = params.weightSquareSum;
   for (let item = begin; item < end; item++) {
     const local = item - levelBegin;
-    const face = (local / perFace) | 0;
-    const rem = local - face * perFace;
-    const ty = (rem / size) | 0;
-    const tx = rem - ty * size;
-    // Texel centre direction (inverse selection table, Vulkan spec) without a table lookup.
-    const u = (2 * (tx + 0.5)) / size - 1;
-    const v = (2 * (ty + 0.5)) / size - 1;
-    let nx: number;
-    let ny: number;
-    let nz: number;
-    switch (face) {
-      case 0: nx = 1; ny = -v; nz = -u; break;
-      case 1: nx = -1; ny = -v; nz = u; break;
-      case 2: nx = u; ny = 1; nz = v; break;
-      case 3: nx = u; ny = -1; nz = -v; break;
-      case 4: nx = u; ny = -v; nz = 1; break;
-      default: nx = -u; ny = -v; nz = -1; break;
-    }
-    const inv = 1 / Math.sqrt(nx * nx + ny * ny + nz * nz);
-    nx *= inv; ny *= inv; nz *= inv;
+    texelCentreDirection(centre, local, size);
+    const nx = centre[0]!;
+    const ny = centre[1]!;
+    const nz = centre[2]!;
     // Duff et al. 2017 orthonormal basis (b1 = t, b2 = b).
     const sign = nz >= 0 ? 1 : -1;
     const a = -1 / (sign + nz);

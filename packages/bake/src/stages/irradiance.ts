@@ -11,8 +11,7 @@ import {
 import { sharedFloat32 } from '@lightkiln/pool';
 import type { ConvolveParams } from '../kernels/convolve.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
-import { levelView, type Pyramid } from './pyramid.js';
-import { sourceDirections } from './specular.js';
+import { levelView, sourceDirections, type Pyramid } from './pyramid.js';
 
 export interface ShResult {
   /** Radiance coefficients L_lm, 27 numbers (9 x RGB), window applied. */

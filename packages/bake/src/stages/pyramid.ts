@@ -3,6 +3,7 @@
  * solid-angle-weighted 2 x 2 reduction down to 1 x 1 faces. All levels live in one shared buffer.
  */
 
+import { cubeFaceSolidAngleTable, cubeTexelCenterDirection } from '@lightkiln/math';
 import { sharedFloat64, toShared } from '@lightkiln/pool';
 import type { ResampleParams } from '../kernels/resample.js';
 import type { ReduceParams } from '../kernels/reduce.js';
@@ -78,4 +79,25 @@ export async function buildPyramid(source: SourceImage, size: number, rotationDe
     });
   }
   return { sizes: layout.sizes, offsets: layout.offsets, data };
+}
+
+/** Per source texel (x, y, z, solid angle) of a pyramid level, float64 in shared memory. */
+export function sourceDirections(pyramid: Pyramid, level: number): Float64Array {
+  const n = pyramid.sizes[level]!;
+  const out = sharedFloat64(6 * n * n * 4);
+  const d = new Float64Array(3);
+  const solid = cubeFaceSolidAngleTable(n);
+  for (let f = 0; f < 6; f++) {
+    for (let y = 0; y < n; y++) {
+      for (let x = 0; x < n; x++) {
+        const t = (f * n + y) * n + x;
+        cubeTexelCenterDirection(d, 0, f, x, y, n);
+        out[t * 4] = d[0]!;
+        out[t * 4 + 1] = d[1]!;
+        out[t * 4 + 2] = d[2]!;
+        out[t * 4 + 3] = solid[y * n + x]!;
+      }
+    }
+  }
+  return out;
 }

@@ -5,7 +5,7 @@
  */
 
 import {
-  alphaFromPerceptualRoughness, cubeFaceSolidAngleTable, cubeTexelCenterDirection, FOUR_PI, ggxD, hammersleyPoint, luminance, rotateUnit, rotationOffsetsForSeed, sampleGgxHalfVector,
+  alphaFromPerceptualRoughness, FOUR_PI, ggxD, hammersleyPoint, luminance, rotateUnit, rotationOffsetsForSeed, sampleGgxHalfVector,
 } from '@lightkiln/math';
 import { sharedFloat32, sharedFloat64, sharedInt32 } from '@lightkiln/pool';
 import type { ReferenceParams } from '../kernels/convolve.js';
@@ -168,27 +168,6 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
     const meanY = sumY / n;
     return { level: req.level, size: req.size, data, usedSamples: p.sampleCount, relativeErrorEstimate: meanY > 0 ? Math.sqrt(sumErr2 / n) / meanY : 0 };
   });
-}
-
-/** Per source texel (x, y, z, solid angle) of a pyramid level, float64 in shared memory. */
-export function sourceDirections(pyramid: Pyramid, level: number): Float64Array {
-  const n = pyramid.sizes[level]!;
-  const out = sharedFloat64(6 * n * n * 4);
-  const d = new Float64Array(3);
-  const solid = cubeFaceSolidAngleTable(n);
-  for (let f = 0; f < 6; f++) {
-    for (let y = 0; y < n; y++) {
-      for (let x = 0; x < n; x++) {
-        const t = (f * n + y) * n + x;
-        cubeTexelCenterDirection(d, 0, f, x, y, n);
-        out[t * 4] = d[0]!;
-        out[t * 4 + 1] = d[1]!;
-        out[t * 4 + 2] = d[2]!;
-        out[t * 4 + 3] = solid[y * n + x]!;
-      }
-    }
-  }
-  return out;
 }
 
 /**
