@@ -1,5 +1,7 @@
-// Compare two sample budgets on one probe: time each bake of the specular chain and measure every level's
-// relative RMSE (BT.709 luminance) against the brute-force reference convolution.
+// Compare sample budgets of the Monte Carlo estimator ('sampled') with the default deterministic quadrature
+// on one probe: time each bake of the specular chain and measure every level's relative RMSE (BT.709
+// luminance) against the brute-force reference convolution. A budget is a preset, a number of samples
+// per texel, or 'quadrature'.
 //   node compare.mjs <input> [size] [budgetA] [budgetB]
 import { pathToFileURL } from 'node:url';
 import { decodeKtx2 } from '@lightkiln/codecs';
@@ -25,7 +27,7 @@ export async function compareBudgets(input, size, budgets) {
     const reference = decodeKtx2((await baker.bake({ ...base, quality: 'reference' })).artifacts[0].bytes);
     const rows = [];
     for (const samples of budgets) {
-      const result = await baker.bake({ ...base, samples });
+      const result = await baker.bake(samples === 'quadrature' ? base : { ...base, quality: 'sampled', samples });
       const spec = decodeKtx2(result.artifacts[0].bytes);
       rows.push({
         samples,

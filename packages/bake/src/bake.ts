@@ -27,7 +27,7 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 2, level: 3, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 1, irradianceFile: 1, lutFile: 1, view: 1, preview: 1,
+  source: 1, pyramid: 3, level: 4, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 2, irradianceFile: 2, lutFile: 1, view: 1, preview: 1,
 });
 
 export interface BakerOptions {
@@ -197,12 +197,12 @@ class BakeRun {
       const entry = await this.cache.get(this.keys.pyramid);
       if (entry !== null) {
         const layout = pyramidLayout(this.recipe.size);
-        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF64(entry.arrays[0])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
+        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF64(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
       }
       const source = await this.source();
       this.#check();
       const pyramid = await this.#timed('resample', () => buildPyramid(source, this.recipe.size, this.recipe.rotationDeg, this.ctx));
-      await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data] });
+      await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data, pyramid.centroids] });
       return { pyramid, sanitized: source.sanitized };
     })();
     return this.#pyramid;
@@ -292,8 +292,8 @@ class BakeRun {
   }
 }
 
-interface SpecularMeta { levels: ManifestLevel[]; sanitized: SanitizeCounts }
-interface IrradianceMeta { radiance: number[]; irradiance: number[] }
+interface SpecularMeta { levels: ManifestLevel[]; sanitized: SanitizeCounts; clamped: number }
+interface IrradianceMeta { radiance: number[]; irradiance: number[]; clamped: number }
 
 export class Baker {
   readonly #pool: WorkerPool;
@@ -419,7 +419,7 @@ export class Baker {
       const specular = await run.file<SpecularMeta>(keys.specularFile, async () => {
         const levels = await run.levels();
         const { sanitized } = await run.pyramid();
-        const bytes = await encodeTimed(run, () => encodeCubeKtx2(levels.map((l) => l.data), r.size, r.output.specularFormat, r.output.supercompression, {
+        const { bytes, clamped } = await encodeTimed(run, () => encodeCubeKtx2(levels.map((l) => l.data), r.size, r.output.specularFormat, r.output.supercompression, {
           'lightkiln.content': 'prefiltered radiance (GGX, split sum, n = v = r)',
           'lightkiln.roughness': roughnessList,
           'lightkiln.samples': JSON.stringify(r.samples),
@@ -428,6 +428,7 @@ export class Baker {
           bytes,
           meta: {
             sanitized,
+            clamped,
             levels: levels.map((l) => ({ level: l.level, size: l.size, roughness: r.roughness[l.level]!, samples: l.level === 0 ? 0 : r.samples[l.level]!, usedSamples: l.level === 0 ? 0 : l.usedSamples, relativeErrorEstimate: l.relativeErrorEstimate })),
           },
         };
@@ -435,11 +436,11 @@ export class Baker {
       const irradiance = await run.file<IrradianceMeta>(keys.irradianceFile, async () => {
         const sh = await run.sh();
         const cube = await run.irradianceCube();
-        const bytes = await encodeTimed(run, () => encodeCubeKtx2([cube], r.irradiance.cubeSize, r.output.irradianceFormat, r.output.supercompression, {
+        const { bytes, clamped } = await encodeTimed(run, () => encodeCubeKtx2([cube], r.irradiance.cubeSize, r.output.irradianceFormat, r.output.supercompression, {
           'lightkiln.content': 'irradiance E(n) (not E / pi)',
           'lightkiln.source': r.irradiance.cubeSource,
         }));
-        return { bytes, meta: { radiance: [...sh.radiance], irradiance: [...sh.irradiance] } };
+        return { bytes, meta: { radiance: [...sh.radiance], irradiance: [...sh.irradiance], clamped } };
       });
       const lut = r.dfg.enabled ? await run.file<{ channels: string[] }>(keys.lutFile, async () => {
         const table = await run.dfg();
@@ -490,6 +491,7 @@ export class Baker {
         lut: lut === null ? null : { size: r.dfg.size, samples: r.dfg.samples, channels: lut.meta.channels },
         artifacts: manifestArtifacts,
         sanitized: specular.meta.sanitized,
+        clampedToFormat: { specular: specular.meta.clamped, irradiance: irradiance.meta.clamped },
         timingsMs: Object.fromEntries(Object.entries(run.timings).map(([k, v]) => [k, Math.round(v * 10) / 10])),
         cache: { ...cache.stats },
       };
@@ -533,7 +535,7 @@ export class Baker {
   }
 }
 
-async function encodeTimed(run: BakeRun, fn: () => Uint8Array): Promise<Uint8Array> {
+async function encodeTimed<T>(run: BakeRun, fn: () => T): Promise<T> {
   const t0 = performance.now();
   const bytes = fn();
   run.timings.encode = (run.timings.encode ?? 0) + performance.now() - t0;

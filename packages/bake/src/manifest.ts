@@ -44,6 +44,8 @@ export interface Manifest {
   readonly lut: { readonly size: number; readonly samples: number; readonly channels: readonly string[] } | null;
   readonly artifacts: readonly ManifestArtifact[];
   readonly sanitized: SanitizeCounts;
+  /** Texels of each written cube clamped to the largest finite value of its format (never Inf in a file). */
+  readonly clampedToFormat: { readonly specular: number; readonly irradiance: number };
   readonly timingsMs: Readonly<Record<string, number>>;
   readonly cache: { readonly hits: number; readonly misses: number; readonly corrupt: number; readonly writes: number };
 }

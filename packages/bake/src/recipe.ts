@@ -60,8 +60,14 @@ export interface Recipe {
   readonly clampLuminance?: number;
   /** Per-level Cranley-Patterson rotation of the Hammersley set (decorrelates levels). Default false. */
   readonly rotateSequence?: boolean;
-  /** 'sampled' (default) or 'reference': brute-force convolution over every source texel (small sizes only). */
-  readonly quality?: 'sampled' | 'reference';
+  /**
+   * How the levels r > 0 are computed. 'quadrature' (default): a deterministic hierarchical quadrature over
+   * the source pyramid that weights every node where its light is, so a small bright sun is integrated
+   * where it is (samples, filtered, lodBias, clampLuminance and rotateSequence do not apply).
+   * 'sampled': GGX importance sampling (Monte Carlo, for comparison). 'reference': brute-force
+   * convolution over every level-0 texel (small sizes only).
+   */
+  readonly quality?: 'quadrature' | 'sampled' | 'reference';
   readonly irradiance?: {
     /** SH9 ringing window (Sloan 2008) applied to the manifest's coefficients and SH-built cube. Default 'none'. */
     readonly shWindow?: ShWindow;
@@ -99,7 +105,11 @@ export interface Recipe {
     readonly nonFinite?: 'repair' | 'reject';
     /** Negative channels: 'clamp' to 0 or 'reject'. Default 'clamp'. */
     readonly negative?: 'clamp' | 'reject';
-    /** Largest radiance kept; larger values are clamped. Default 65504 (binary16 max). */
+    /**
+     * Largest source radiance kept; larger values (and +Inf) become this. Default 1e9: a real sun is far
+     * brighter than the binary16 range, and its energy must reach the prefiltered levels; the written
+     * files clamp to their format's range on their own (counted in the manifest).
+     */
     readonly maxRadiance?: number;
   };
   readonly limits?: {
@@ -127,7 +137,7 @@ export interface ResolvedRecipe {
   readonly lodBias: number;
   readonly clampLuminance: number;
   readonly rotateSequence: boolean;
-  readonly quality: 'sampled' | 'reference';
+  readonly quality: 'quadrature' | 'sampled' | 'reference';
   readonly irradiance: { readonly shWindow: ShWindow; readonly shWindowWidth: number; readonly cubeSize: number; readonly cubeSource: 'convolution' | 'sh9' };
   readonly dfg: { readonly enabled: boolean; readonly size: number; readonly samples: number; readonly multiscatter: boolean; readonly cloth: boolean };
   readonly output: { readonly specularFormat: CubeFormat; readonly irradianceFormat: CubeFormat; readonly supercompression: 'none' | 'zlib'; readonly views: readonly ('hdr' | 'exr')[]; readonly preview: boolean };
@@ -158,7 +168,7 @@ const schema = z.object({
   lodBias: z.number().min(-4).max(8).default(0.5),
   clampLuminance: z.number().min(0).finite().default(0),
   rotateSequence: z.boolean().default(false),
-  quality: z.enum(['sampled', 'reference']).default('sampled'),
+  quality: z.enum(['quadrature', 'sampled', 'reference']).default('quadrature'),
   irradiance: z.object({
     shWindow: z.enum(['none', 'hann', 'lanczos']).default('none'),
     shWindowWidth: z.number().min(1).max(16).default(3),
@@ -182,8 +192,8 @@ const schema = z.object({
   sanitize: z.object({
     nonFinite: z.enum(['repair', 'reject']).default('repair'),
     negative: z.enum(['clamp', 'reject']).default('clamp'),
-    maxRadiance: z.number().positive().finite().default(65504),
-  }).strict().default({ nonFinite: 'repair', negative: 'clamp', maxRadiance: 65504 }),
+    maxRadiance: z.number().positive().finite().max(1e30).default(1e9),
+  }).strict().default({ nonFinite: 'repair', negative: 'clamp', maxRadiance: 1e9 }),
   limits: z.object({
     maxInputBytes: z.number().int().positive().default(1024 ** 3),
     maxInputPixels: z.number().int().positive().default(8192 * 8192),

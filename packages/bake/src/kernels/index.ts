@@ -5,6 +5,8 @@ import { convolveIrradiance, referenceSpecular } from './convolve.js';
 import { integrateDfgTable } from './dfg.js';
 import { reducePyramid } from './reduce.js';
 import { resampleCube, resampleEquirect } from './resample.js';
+import { prefilterQuadrature } from './quadrature.js';
+import { splatEquirect } from './splat.js';
 import { prefilterSpecular } from './specular.js';
 
 export const kernels: KernelModule['kernels'] = {
@@ -12,6 +14,8 @@ export const kernels: KernelModule['kernels'] = {
   resampleCube,
   reducePyramid,
   prefilterSpecular,
+  prefilterQuadrature,
+  splatEquirect,
   referenceSpecular,
   convolveIrradiance,
   integrateDfgTable,

@@ -6,12 +6,21 @@
 
 import { cubeTexelSolidAngle } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
+import { NODE_STRIDE } from '../stages/node-geometry.js';
 
 export interface ReduceParams {
   /** Parent face size; the child level has 2 * size. */
   readonly size: number;
   readonly srcOffset: number;
   readonly dstOffset: number;
+  /**
+   * With buffers.centroids and buffers.geometry: texel offsets of the child and parent levels there
+   * (centroid offsets are 3 floats a texel, the node table NODE_STRIDE a face texel).
+   */
+  readonly childNodeOffset?: number;
+  readonly parentNodeOffset?: number;
+  readonly childGeometryOffset?: number;
+  readonly parentGeometryOffset?: number;
 }
 
 /** buffers.pyramid: all levels concatenated (RGB float64); items are parent texels of this level. */
@@ -45,5 +54,58 @@ export function reducePyramid(buffers: SharedBuffers, begin: number, end: number
     pyr[o] = r / wsum;
     pyr[o + 1] = g / wsum;
     pyr[o + 2] = b / wsum;
+  }
+  if (buffers.centroids !== undefined) reduceCentroids(buffers, begin, end, params);
+}
+
+/**
+ * The luminance centroid of a parent texel: its luminance-weighted first moment is the sum of the
+ * children's, Y_c Omega_c (mean_c + offset_c); stored as an offset from the parent's geometric mean
+ * (face frame), 0 where the parent is black.
+ */
+function reduceCentroids(buffers: SharedBuffers, begin: number, end: number, params: ReduceParams): void {
+  const pyr = buffers.pyramid as Float64Array;
+  const cent = buffers.centroids as Float32Array;
+  const geo = buffers.geometry as Float64Array;
+  const size = params.size;
+  const child = size * 2;
+  const perFace = size * size;
+  const childNodes = params.childNodeOffset!;
+  const parentNodes = params.parentNodeOffset!;
+  const childGeo = params.childGeometryOffset!;
+  const parentGeo = params.parentGeometryOffset!;
+  for (let i = begin; i < end; i++) {
+    const face = (i / perFace) | 0;
+    const rem = i - face * perFace;
+    const y = (rem / size) | 0;
+    const x = rem - y * size;
+    let mc = 0;
+    let mu = 0;
+    let mv = 0;
+    let yw = 0;
+    for (let dy = 0; dy < 2; dy++) {
+      for (let dx = 0; dx < 2; dx++) {
+        const cx = 2 * x + dx;
+        const cy = 2 * y + dy;
+        const t = (face * child + cy) * child + cx;
+        const o = params.srcOffset + t * 3;
+        const g = childGeo + (cy * child + cx) * NODE_STRIDE;
+        const w = (0.2126 * pyr[o]! + 0.7152 * pyr[o + 1]! + 0.0722 * pyr[o + 2]!) * geo[g + 3]!;
+        const co = (childNodes + t) * 3;
+        mc += w * (geo[g]! + cent[co]!);
+        mu += w * (geo[g + 1]! + cent[co + 1]!);
+        mv += w * (geo[g + 2]! + cent[co + 2]!);
+        yw += w;
+      }
+    }
+    const po = (parentNodes + i) * 3;
+    if (!(yw > 0)) {
+      cent[po] = 0; cent[po + 1] = 0; cent[po + 2] = 0;
+      continue;
+    }
+    const g = parentGeo + rem * NODE_STRIDE;
+    cent[po] = mc / yw - geo[g]!;
+    cent[po + 1] = mu / yw - geo[g + 1]!;
+    cent[po + 2] = mv / yw - geo[g + 2]!;
   }
 }

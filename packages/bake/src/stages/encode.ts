@@ -6,31 +6,53 @@ import type { DfgTable } from './dfg.js';
 
 export const WRITER = 'lightkiln 0.1.0';
 
-/** RGB texels to the channel count of a format (alpha = 1 for the RGBA formats). */
-function toFormatChannels(rgb: Float32Array, format: CubeFormat): Float32Array {
-  if (format === 'rgb9e5' || format === 'b10g11r11') return rgb;
+/**
+ * Largest finite value of each channel a cube format stores (IEEE 754 binary16: 65504; RGB9E5: 65408;
+ * B10G11R11: 65024 for the 11-bit R and G, 64512 for the 10-bit B; float32: 3.4028235e38).
+ */
+export const FORMAT_MAX: Readonly<Record<CubeFormat, readonly [number, number, number]>> = {
+  rgba16f: [65504, 65504, 65504],
+  rgba32f: [3.4028234663852886e38, 3.4028234663852886e38, 3.4028234663852886e38],
+  rgb9e5: [65408, 65408, 65408],
+  b10g11r11: [65024, 65024, 64512],
+};
+
+/**
+ * RGB texels to the channel count of a format (alpha = 1 for the RGBA formats), each channel clamped to
+ * the format's largest finite value so no artifact holds Inf; returns the number of texels clamped.
+ */
+function toFormatChannels(rgb: Float32Array, format: CubeFormat): { data: Float32Array; clamped: number } {
+  const max = FORMAT_MAX[format];
+  const channels = format === 'rgb9e5' || format === 'b10g11r11' ? 3 : 4;
   const n = rgb.length / 3;
-  const out = new Float32Array(n * 4);
+  const out = new Float32Array(n * channels);
+  let clamped = 0;
   for (let t = 0; t < n; t++) {
-    out[t * 4] = rgb[t * 3]!;
-    out[t * 4 + 1] = rgb[t * 3 + 1]!;
-    out[t * 4 + 2] = rgb[t * 3 + 2]!;
-    out[t * 4 + 3] = 1;
+    let over = false;
+    for (let c = 0; c < 3; c++) {
+      const v = rgb[t * 3 + c]!;
+      if (v > max[c]!) { out[t * channels + c] = max[c]!; over = true; } else out[t * channels + c] = v;
+    }
+    if (channels === 4) out[t * 4 + 3] = 1;
+    if (over) clamped++;
   }
-  return out;
+  return { data: out, clamped };
 }
 
-export function encodeCubeKtx2(levels: readonly Float32Array[], size: number, format: CubeFormat, supercompression: 'none' | 'zlib', keyValues: Record<string, string>): Uint8Array {
-  return encodeKtx2({
+/** A cube (all levels) as KTX 2.0, and how many texels were clamped to the format's range. */
+export function encodeCubeKtx2(levels: readonly Float32Array[], size: number, format: CubeFormat, supercompression: 'none' | 'zlib', keyValues: Record<string, string>): { bytes: Uint8Array; clamped: number } {
+  const converted = levels.map((l) => toFormatChannels(l, format));
+  const bytes = encodeKtx2({
     format: format as Ktx2Format,
     width: size,
     height: size,
     faceCount: 6,
-    levels: levels.map((l) => toFormatChannels(l, format)),
+    levels: converted.map((c) => c.data),
     supercompression,
     writer: WRITER,
     keyValues,
   });
+  return { bytes, clamped: converted.reduce((n, c) => n + c.clamped, 0) };
 }
 
 export function encodeDfgKtx2(table: DfgTable, supercompression: 'none' | 'zlib', samples: number): Uint8Array {

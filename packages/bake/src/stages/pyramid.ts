@@ -1,22 +1,31 @@
 /**
- * Stages 2 and 3: area-correct resampling of the source onto the level-0 cube (rotation applied), then the
- * solid-angle-weighted 2 x 2 reduction down to 1 x 1 faces. All levels live in one shared buffer.
+ * Stages 2 and 3: resampling of the source onto the level-0 cube (rotation applied), then the
+ * solid-angle-weighted 2 x 2 reduction down to 1 x 1 faces. All levels live in one shared buffer, beside
+ * the luminance centroid of every texel (an offset from its geometric mean direction, face frame) that
+ * the hierarchical quadrature of the specular stage weights the light by.
  */
 
 import { cubeFaceSolidAngleTable, cubeTexelCenterDirection } from '@lightkiln/math';
-import { sharedFloat64, toShared } from '@lightkiln/pool';
+import { sharedFloat32, sharedFloat64, toShared } from '@lightkiln/pool';
 import type { ResampleParams } from '../kernels/resample.js';
 import type { ReduceParams } from '../kernels/reduce.js';
+import type { SplatParams } from '../kernels/splat.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
+import { nodeGeometry } from './node-geometry.js';
 import type { SourceImage } from './source.js';
 
 export interface Pyramid {
   /** Face size of each level, level 0 first (size, size/2, ..., 1). */
   readonly sizes: readonly number[];
-  /** Float offset of each level in data. */
+  /** Float offset of each level in data (three floats a texel: the texel offset is offsets / 3). */
   readonly offsets: readonly number[];
   /** RGB texels of every level (shared memory), float64: conversion-free loads in the hot kernels. */
   readonly data: Float64Array;
+  /**
+   * Per texel of every level (same order as data), the luminance-weighted mean direction minus the
+   * texel's geometric mean direction, in the face frame (C, U, V) of stages/node-geometry.ts; float32.
+   */
+  readonly centroids: Float32Array;
 }
 
 export function pyramidLayout(size: number): { sizes: number[]; offsets: number[]; length: number } {
@@ -37,8 +46,8 @@ export function levelView(pyramid: Pyramid, level: number): Float64Array {
 }
 
 /**
- * Supersamples per axis: enough that the spacing of the points is below the source's pixel spacing
- * (cube texel at the face centre spans 2/size of tangent space; an equirect pixel 2 pi / width radians).
+ * Supersamples per axis of the cube-source resample: enough that the spacing of the points is below the
+ * source's texel spacing (a cube texel at the face centre spans 2/size of tangent space).
  */
 export function supersampleFactor(source: SourceImage, size: number): number {
   const texelAngle = 2 / size;
@@ -46,39 +55,66 @@ export function supersampleFactor(source: SourceImage, size: number): number {
   return Math.max(1, Math.min(8, Math.ceil((1.5 * texelAngle) / srcAngle)));
 }
 
+/**
+ * Sub-cells per source pixel and axis of the equirect splat: even (so the midpoint rule integrates the
+ * bilinear reconstruction exactly) and no larger than half a face-centre texel.
+ */
+export function splatSubcells(width: number, height: number, size: number): number {
+  const pixelAngle = Math.max(Math.PI / height, (2 * Math.PI) / width);
+  return Math.max(2, 2 * Math.ceil((pixelAngle * size) / 2));
+}
+
 export async function buildPyramid(source: SourceImage, size: number, rotationDeg: number, ctx: StageContext): Promise<Pyramid> {
   const layout = pyramidLayout(size);
   const data = sharedFloat64(layout.length);
-  const level0 = data.subarray(0, 6 * size * size * 3);
+  const centroids = sharedFloat32(layout.length);
+  const geometry = nodeGeometry(size);
   const angle = (rotationDeg * Math.PI) / 180;
-  const params: ResampleParams = {
-    size,
-    supersample: supersampleFactor(source, size),
-    rotCos: Math.cos(angle),
-    rotSin: Math.sin(angle),
-    srcWidth: source.kind === 'equirect' ? source.width : source.size,
-    srcHeight: source.kind === 'equirect' ? source.height : source.size,
-  };
-  const cost = params.supersample * params.supersample * 4;
-  await ctx.pool.run({
-    kernel: kernel(source.kind === 'equirect' ? 'resampleEquirect' : 'resampleCube'),
-    buffers: { src: toShared(source.data), dst: level0 },
-    segments: [0, 1, 2, 3, 4, 5].map((f) => ({ begin: f * size * size, end: (f + 1) * size * size, costPerItem: cost, rowLength: size, label: `resample face ${f}` })),
-    params,
-    ...jobOptions(ctx, 'resample'),
-  });
+  const faceItems = size * size;
+  if (source.kind === 'equirect') {
+    const params: SplatParams = {
+      size, srcWidth: source.width, srcHeight: source.height, subcells: splatSubcells(source.width, source.height, size),
+      rotCos: Math.cos(angle), rotSin: Math.sin(angle),
+    };
+    // One tile a face: each scans the part of the source that can land on it (a cap reads about twice
+    // the pixels of a side face).
+    const perFacePixels = source.width * source.height * params.subcells * params.subcells;
+    await ctx.pool.run({
+      kernel: kernel('splatEquirect'),
+      buffers: { src: toShared(source.data), pyramid: data, centroids, geometry: geometry.data },
+      segments: [0, 1, 2, 3, 4, 5].map((f) => ({ begin: f * faceItems, end: (f + 1) * faceItems, costPerItem: ((f === 2 || f === 3 ? 0.3 : 0.15) * perFacePixels) / faceItems, rowLength: faceItems, label: `resample face ${f}` })),
+      params,
+      ...jobOptions(ctx, 'resample'),
+    });
+  } else {
+    const params: ResampleParams = {
+      size, supersample: supersampleFactor(source, size), rotCos: Math.cos(angle), rotSin: Math.sin(angle), srcWidth: source.size, srcHeight: source.size,
+    };
+    const cost = params.supersample * params.supersample * 4;
+    await ctx.pool.run({
+      kernel: kernel('resampleCube'),
+      buffers: { src: toShared(source.data), dst: data.subarray(0, 6 * faceItems * 3) },
+      segments: [0, 1, 2, 3, 4, 5].map((f) => ({ begin: f * faceItems, end: (f + 1) * faceItems, costPerItem: cost, rowLength: size, label: `resample face ${f}` })),
+      params,
+      ...jobOptions(ctx, 'resample'),
+    });
+  }
   for (let l = 1; l < layout.sizes.length; l++) {
     const n = layout.sizes[l]!;
-    const reduce: ReduceParams = { size: n, srcOffset: layout.offsets[l - 1]!, dstOffset: layout.offsets[l]! };
+    const reduce: ReduceParams = {
+      size: n, srcOffset: layout.offsets[l - 1]!, dstOffset: layout.offsets[l]!,
+      childNodeOffset: layout.offsets[l - 1]! / 3, parentNodeOffset: layout.offsets[l]! / 3,
+      childGeometryOffset: geometry.offsets[l - 1]!, parentGeometryOffset: geometry.offsets[l]!,
+    };
     await ctx.pool.run({
       kernel: kernel('reducePyramid'),
-      buffers: { pyramid: data },
-      segments: [{ begin: 0, end: 6 * n * n, costPerItem: 40, rowLength: n, label: `pyramid level ${l}` }],
+      buffers: { pyramid: data, centroids, geometry: geometry.data },
+      segments: [{ begin: 0, end: 6 * n * n, costPerItem: 60, rowLength: n, label: `pyramid level ${l}` }],
       params: reduce,
       ...jobOptions(ctx, 'pyramid'),
     });
   }
-  return { sizes: layout.sizes, offsets: layout.offsets, data };
+  return { sizes: layout.sizes, offsets: layout.offsets, data, centroids };
 }
 
 /** Per source texel (x, y, z, solid angle) of a pyramid level, float64 in shared memory. */

@@ -7,8 +7,10 @@
 import {
   alphaFromPerceptualRoughness, FOUR_PI, ggxD, hammersleyPoint, luminance, rotateUnit, rotationOffsetsForSeed, sampleGgxHalfVector,
 } from '@lightkiln/math';
-import { sharedFloat32, sharedFloat64, sharedInt32 } from '@lightkiln/pool';
+import { sharedFloat32, sharedFloat64, sharedInt32, type Segment } from '@lightkiln/pool';
 import type { ReferenceParams } from '../kernels/convolve.js';
+import { LEVEL_TABLE_STRIDE, type QuadratureParams } from '../kernels/quadrature.js';
+import { nodeGeometry } from './node-geometry.js';
 import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
 import { levelView, type Pyramid } from './pyramid.js';
@@ -110,13 +112,124 @@ export interface SpecularOptions {
   readonly lodBias: number;
   readonly clampLuminance: number;
   readonly rotateSequence: boolean;
-  readonly quality: 'sampled' | 'reference';
+  readonly quality: 'quadrature' | 'sampled' | 'reference';
+}
+
+/**
+ * Opening criterion of the hierarchical quadrature: a node is accepted when its angular radius is below
+ * QUADRATURE_THETA times the larger of its chord distance from n and QUADRATURE_GAMMA alpha.
+ */
+export const QUADRATURE_THETA = 0.5;
+export const QUADRATURE_GAMMA = 2;
+/** Nodes whose largest possible share of a texel's lobe integral is below this are not opened. */
+export const QUADRATURE_NEGLIGIBLE = 2e-5;
+
+/**
+ * Integral over the sphere of w(c) = max(c, 0) / (1 + a^2 + c (a^2 - 1))^2 (the kernel's lobe, up to
+ * its constant): 2 pi integral_0^1 w(c) dc, by 8-point Gauss-Legendre on panels geometric towards c = 1.
+ */
+export function lobeIntegral(alphaSquared: number): number {
+  const X = [-0.9602898564975363, -0.7966664774136267, -0.525532409916329, -0.1834346424956498, 0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363];
+  const Wt = [0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.362683783378362, 0.362683783378362, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763];
+  let sum = 0;
+  let hi = 1;
+  let width = Math.max(1e-9, alphaSquared / 8);
+  while (hi > 0) {
+    const lo = Math.max(0, hi - width);
+    for (let k = 0; k < 8; k++) {
+      const c = 0.5 * (lo + hi) + 0.5 * (hi - lo) * X[k]!;
+      const q = 1 + alphaSquared + c * (alphaSquared - 1);
+      sum += 0.5 * (hi - lo) * Wt[k]! * (c / (q * q));
+    }
+    hi = lo;
+    width *= 2;
+  }
+  return 2 * Math.PI * sum;
+}
+
+/** The default: every requested level by the hierarchical quadrature (kernels/quadrature.ts), one pool job. */
+async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext): Promise<LevelResult[]> {
+  const geometry = nodeGeometry(pyramid.sizes[0]!);
+  const levels = pyramid.sizes.length;
+  const levelTable = sharedInt32(levels * LEVEL_TABLE_STRIDE);
+  for (let k = 0; k < levels; k++) {
+    levelTable[k * LEVEL_TABLE_STRIDE] = pyramid.sizes[k]!;
+    levelTable[k * LEVEL_TABLE_STRIDE + 1] = pyramid.offsets[k]!;
+    levelTable[k * LEVEL_TABLE_STRIDE + 2] = pyramid.offsets[k]! / 3;
+    levelTable[k * LEVEL_TABLE_STRIDE + 3] = geometry.offsets[k]!;
+  }
+  const topOffset = pyramid.offsets[levels - 1]!;
+  let meanLuminance = 0;
+  for (let f = 0; f < 6; f++) meanLuminance += luminance(pyramid.data[topOffset + f * 3]!, pyramid.data[topOffset + f * 3 + 1]!, pyramid.data[topOffset + f * 3 + 2]!) / 6;
+  let texels = 0;
+  const segments = [];
+  const segmentParams: QuadratureParams[] = [];
+  for (const req of requests) {
+    const alpha = alphaFromPerceptualRoughness(req.roughness);
+    const params: QuadratureParams = {
+      size: req.size, levelBegin: texels, dstOffset: texels * 3, alphaSquared: alpha * alpha,
+      theta: QUADRATURE_THETA, lobeWidth: QUADRATURE_GAMMA * alpha, meanLuminance, levels,
+      negligible: QUADRATURE_NEGLIGIBLE * lobeIntegral(alpha * alpha),
+    };
+    for (let f = 0; f < 6; f++) {
+      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: 200, rowLength: req.size, label: `level ${req.level} face ${f}` });
+      segmentParams.push(params);
+    }
+    texels += 6 * req.size * req.size;
+  }
+  const dst = sharedFloat32(texels * 3);
+  const visits = sharedFloat32(texels);
+  const buffers = { pyramid: pyramid.data, centroids: pyramid.centroids, geometry: geometry.data, levelTable, dst, visits };
+  await ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  // The error estimate: every eighth row of every face again with half the opening angle (about four
+  // times the nodes); twice the RMS difference, over the level's mean luminance.
+  const fine = sharedFloat32(texels * 3);
+  const checkSegments: Segment[] = [];
+  const checkParams: QuadratureParams[] = [];
+  for (let r = 0; r < requests.length; r++) {
+    const p = segmentParams[r * 6]!;
+    const step = Math.max(1, p.size >> 3);
+    for (let f = 0; f < 6; f++) {
+      for (let y = step >> 1; y < p.size; y += step) {
+        const first = p.levelBegin + (f * p.size + y) * p.size;
+        checkSegments.push({ begin: first, end: first + p.size, costPerItem: 800, rowLength: p.size, label: `level ${requests[r]!.level} check` });
+        checkParams.push({ ...p, theta: p.theta / 2 });
+      }
+    }
+  }
+  await ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers: { ...buffers, dst: fine, visits: sharedFloat32(texels) }, segments: checkSegments, segmentParams: checkParams, ...jobOptions(ctx, 'specular') });
+  return requests.map((req, r) => {
+    const p = segmentParams[r * 6]!;
+    const n = 6 * req.size * req.size;
+    let sum = 0;
+    let sumY = 0;
+    for (let t = 0; t < n; t++) {
+      sum += visits[p.levelBegin + t]!;
+      const o = (p.levelBegin + t) * 3;
+      sumY += luminance(dst[o]!, dst[o + 1]!, dst[o + 2]!);
+    }
+    let se = 0;
+    let checked = 0;
+    for (let c = 0; c < checkSegments.length; c++) {
+      if (checkParams[c]!.levelBegin !== p.levelBegin) continue;
+      for (let t = checkSegments[c]!.begin; t < checkSegments[c]!.end; t++) {
+        const o = t * 3;
+        const d = luminance(dst[o]!, dst[o + 1]!, dst[o + 2]!) - luminance(fine[o]!, fine[o + 1]!, fine[o + 2]!);
+        se += d * d;
+        checked++;
+      }
+    }
+    const meanY = sumY / n;
+    const estimate = meanY > 0 && checked > 0 ? (2 * Math.sqrt(se / checked)) / meanY : 0;
+    return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: Math.round(sum / n), relativeErrorEstimate: estimate };
+  });
 }
 
 /** Computes the requested levels (all >= 1) in one pool job, so tiles of all levels interleave. */
 export async function prefilterLevels(pyramid: Pyramid, requests: readonly LevelRequest[], options: SpecularOptions, ctx: StageContext): Promise<LevelResult[]> {
   if (requests.length === 0) return [];
   if (options.quality === 'reference') return referenceLevels(pyramid, requests, ctx);
+  if (options.quality === 'quadrature') return quadratureLevels(pyramid, requests, ctx);
   const sets = requests.map((req) => buildSampleSet(alphaFromPerceptualRoughness(req.roughness), pyramid, {
     sampleCount: req.samples,
     filtered: options.filtered,

@@ -1,0 +1,204 @@
+/**
+ * Stage 4 kernel, the default: prefiltered radiance LD(n) (split sum with n = v = r, Karis 2013) by a
+ * deterministic hierarchical quadrature over the source pyramid, in the manner of a Barnes-Hut tree code
+ * (Barnes & Hut 1986, "A hierarchical O(N log N) force-calculation algorithm", Nature 324).
+ *
+ * LD(n) = sum over nodes of Lbar Omega E_Y[w(n.l)] / sum over nodes of Omega E_G[w(n.l)], where
+ * w(c) = D(h) max(c, 0) with (n.h)^2 = (1 + c) / 2 (half-angle identity), GGX D (Walter et al. 2007):
+ * D is proportional to 1 / (1 + a^2 + c (a^2 - 1))^2 and the constant cancels in the ratio. A node is a
+ * pyramid texel; the walk starts at the six 1 x 1 faces and opens a node (visits its four children)
+ * unless it is small against the lobe where it lies: angular radius rho below theta max(|n - g|, gamma
+ * alpha), scaled down by sqrt(mean luminance / node luminance) for bright nodes, and not straddling the
+ * horizon of n. Level-0 texels are always accepted. E_G averages w over the node's geometry (mean
+ * direction and its spread from the node table), E_Y over where its light is (the luminance centroid),
+ * both by a two-point rule matching the mean and variance of n.l. A constant environment is exact: E_Y
+ * equals E_G when the light is uniform.
+ */
+
+import { CUBE_FACE_BASIS } from '@lightkiln/math';
+import type { SharedBuffers } from '@lightkiln/pool';
+import { NODE_STRIDE } from '../stages/node-geometry.js';
+import { texelCentreDirection } from './texel.js';
+
+/** Int32 numbers per pyramid level in buffers.levelTable: size, RGB float offset, node offset, geometry offset. */
+export const LEVEL_TABLE_STRIDE = 4;
+
+export interface QuadratureParams {
+  /** Output face size, first item of this level and float offset of its texels in buffers.dst. */
+  readonly size: number;
+  readonly levelBegin: number;
+  readonly dstOffset: number;
+  /** GGX alpha^2 of the level. */
+  readonly alphaSquared: number;
+  /** Opening criterion: theta, and gamma * alpha (the lobe's own width scale, radians). */
+  readonly theta: number;
+  readonly lobeWidth: number;
+  /** Mean luminance of the environment (the 1 x 1 level), for the brightness scaling. */
+  readonly meanLuminance: number;
+  /** Number of pyramid levels (the coarsest has 1 x 1 faces). */
+  readonly levels: number;
+  /**
+   * A node whose largest possible share, Omega w_max max(Y, Ybar) / Ybar, is below this (the lobe
+   * integral times the tolerance) is accepted as it is, wherever it lies.
+   */
+  readonly negligible: number;
+}
+
+/** w(c) up to a constant: D(h) max(c, 0) with v = n (see the module comment). */
+function lobe(c: number, a2: number): number {
+  if (c <= 0) return 0;
+  const q = 1 + a2 + c * (a2 - 1);
+  return c / (q * q);
+}
+
+/**
+ * Mean of w(n.l) over a node whose directions have mean vector of length m and n.l mean cMean, with
+ * cosBeta the cosine between n and the mean direction: the variance of n.l for a spread symmetric about
+ * the mean direction is cos^2(beta) (1 - m)^2 / 3 + sin^2(beta) (1 - m) (small-angle expansion, ours), and a
+ * two-point rule with that mean and variance (upper point kept at or below 1) gives the mean.
+ */
+function lobeMean(cMean: number, m: number, cosBeta: number, a2: number): number {
+  const om = 1 - m;
+  const cb2 = cosBeta * cosBeta;
+  const variance = (cb2 * om * om) / 3 + (1 - cb2) * om;
+  if (!(variance > 1e-30)) return lobe(cMean, a2);
+  const sigma = Math.sqrt(variance);
+  const room = 1 - cMean;
+  const up = sigma < room ? sigma : room;
+  if (!(up > 0)) return lobe(cMean, a2);
+  const down = variance / up;
+  if (cMean - down >= 0) {
+    const p = down / (up + down);
+    return p * lobe(cMean + up, a2) + (1 - p) * lobe(cMean - down, a2);
+  }
+  // Across the horizon of n: n.l taken as uniform on [cMean - h, cMean + h] with the same variance
+  // (h = sqrt(3) sigma), so E[max(c, 0)] = b^2 / (2 (b - a)) with D taken at the mean of the lit part.
+  const h = 1.7320508075688772 * sigma;
+  const hi = cMean + h;
+  if (hi <= 0) return 0;
+  return (lobe(0.5 * hi, a2) * hi) / (2 * h);
+}
+
+/**
+ * buffers.pyramid (RGB float64), buffers.centroids (float32, 3 a texel), buffers.geometry (node table,
+ * float64), buffers.levelTable (int32), buffers.dst (RGB float32); buffers.visits (float32, one per item):
+ * nodes accumulated for the item (the cost statistic of the manifest).
+ */
+export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: number, params: QuadratureParams): void {
+  const pyr = buffers.pyramid as Float64Array;
+  const cent = buffers.centroids as Float32Array;
+  const geo = buffers.geometry as Float64Array;
+  const table = buffers.levelTable as Int32Array;
+  const dst = buffers.dst as Float32Array;
+  const visits = buffers.visits as Float32Array;
+  const B = CUBE_FACE_BASIS;
+  const size = params.size;
+  const a2 = params.alphaSquared;
+  const theta = params.theta;
+  const lobeWidth = params.lobeWidth;
+  const yMean = params.meanLuminance;
+  const negligible = params.negligible;
+  const top = params.levels - 1;
+  const centre = new Float64Array(3);
+  const stack = new Int32Array(4 * (8 + 4 * params.levels));
+  for (let item = begin; item < end; item++) {
+    const local = item - params.levelBegin;
+    texelCentreDirection(centre, local, size);
+    const nx = centre[0]!;
+    const ny = centre[1]!;
+    const nz = centre[2]!;
+    let sr = 0;
+    let sg = 0;
+    let sb = 0;
+    let den = 0;
+    let accepted = 0;
+    // Stack entries: level, face, x, y.
+    let sp = 0;
+    for (let f = 5; f >= 0; f--) {
+      stack[sp++] = top;
+      stack[sp++] = f;
+      stack[sp++] = 0;
+      stack[sp++] = 0;
+    }
+    while (sp > 0) {
+      const ty = stack[--sp]!;
+      const tx = stack[--sp]!;
+      const face = stack[--sp]!;
+      const k = stack[--sp]!;
+      const tk = k * LEVEL_TABLE_STRIDE;
+      const nk = table[tk]!;
+      const rem = ty * nk + tx;
+      const t = face * nk * nk + rem;
+      const gi = table[tk + 3]! + rem * NODE_STRIDE;
+      const b = face * 9;
+      const mc = geo[gi]!;
+      const mu = geo[gi + 1]!;
+      const mv = geo[gi + 2]!;
+      const mLen = geo[gi + 7]!;
+      // Geometric mean direction in the world frame and its cosine with n.
+      const gx = B[b]! * mc + B[b + 3]! * mu + B[b + 6]! * mv;
+      const gy = B[b + 1]! * mc + B[b + 4]! * mu + B[b + 7]! * mv;
+      const gz = B[b + 2]! * mc + B[b + 5]! * mu + B[b + 8]! * mv;
+      const cG = nx * gx + ny * gy + nz * gz;
+      let cosPsi = cG / mLen;
+      if (cosPsi > 1) cosPsi = 1; else if (cosPsi < -1) cosPsi = -1;
+      const sinPsi = Math.sqrt(1 - cosPsi * cosPsi);
+      const cosR = geo[gi + 4]!;
+      const sinR = geo[gi + 5]!;
+      // Wholly below the horizon of n (psi - rho >= pi / 2): no weight.
+      if (cosPsi * cosR + sinPsi * sinR <= 0) continue;
+      const po = table[tk + 1]! + t * 3;
+      const r = pyr[po]!;
+      const g = pyr[po + 1]!;
+      const bl = pyr[po + 2]!;
+      const y = 0.2126 * r + 0.7152 * g + 0.0722 * bl;
+      // Largest n.l in the node, cos(psi - rho) (1 when n lies inside it), bounds w over the node.
+      const wMax = lobe(sinPsi * cosR <= cosPsi * sinR ? 1 : cosPsi * cosR + sinPsi * sinR, a2);
+      if (k > 0) {
+        const bound = geo[gi + 3]! * wMax * (y > yMean ? y : yMean);
+        const straddles = bound > negligible * yMean && cosPsi * cosR - sinPsi * sinR < 0;
+        const rho = geo[gi + 6]!;
+        const chord = Math.sqrt(2 - 2 * cosPsi);
+        const reach = theta * (chord > lobeWidth ? chord : lobeWidth);
+        if (straddles || (bound > negligible * yMean && rho * rho * (y > yMean ? y : yMean) > reach * reach * yMean)) {
+          const k1 = k - 1;
+          const x2 = 2 * tx;
+          const y2 = 2 * ty;
+          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2;
+          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2;
+          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2 + 1;
+          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2 + 1;
+          continue;
+        }
+      }
+      const omega = geo[gi + 3]!;
+      const wG = lobeMean(cG, mLen, cosPsi, a2);
+      den += omega * (wG < wMax ? wG : wMax);
+      accepted++;
+      if (y > 0) {
+        const co = (table[tk + 2]! + t) * 3;
+        const yc = mc + cent[co]!;
+        const yu = mu + cent[co + 1]!;
+        const yv = mv + cent[co + 2]!;
+        const lx = B[b]! * yc + B[b + 3]! * yu + B[b + 6]! * yv;
+        const ly = B[b + 1]! * yc + B[b + 4]! * yu + B[b + 7]! * yv;
+        const lz = B[b + 2]! * yc + B[b + 5]! * yu + B[b + 8]! * yv;
+        let yLen = Math.sqrt(lx * lx + ly * ly + lz * lz);
+        if (yLen > 1) yLen = 1;
+        const cY = nx * lx + ny * ly + nz * lz;
+        let wY = lobeMean(cY, yLen, yLen > 0 ? cY / yLen : 0, a2);
+        if (wY > wMax) wY = wMax;
+        wY *= omega;
+        sr += wY * r;
+        sg += wY * g;
+        sb += wY * bl;
+      }
+    }
+    const o = params.dstOffset + local * 3;
+    const inv = den > 0 ? 1 / den : 0;
+    dst[o] = sr * inv;
+    dst[o + 1] = sg * inv;
+    dst[o + 2] = sb * inv;
+    visits[item] = accepted;
+  }
+}

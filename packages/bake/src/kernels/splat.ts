@@ -1,0 +1,283 @@
+/**
+ * Stage 2 kernel for equirectangular sources: energy-exact resampling onto the level-0 cube, plus the
+ * luminance centroid of every texel. Each source pixel is cut into s x s sub-cells (s even); a sub-cell
+ * carries the source's bilinear reconstruction at its centre (with s even the midpoint rule integrates
+ * that reconstruction exactly) over its exact solid angle (2 pi / (W s)) (cos theta_a - cos theta_b), and
+ * lands whole in the texel that holds its centre. A texel's value is the energy that landed in it plus
+ * the per-channel minimum of its sub-cells over the part of its footprint the sub-cells missed (or minus
+ * it over the part they overshot), divided by its exact solid angle: a constant sky stays exact, and a
+ * bright source smaller than a texel keeps all of its energy. The luminance-weighted mean direction of
+ * the texel is stored as an offset from the texel's geometric mean direction (face frame, float32), so a
+ * sun is weighted by the prefilter where it really is, not at the texel centre.
+ *
+ * Items are level-0 texels; a tile must cover whole faces (the stage sets rowLength to a face), since
+ * every tile scans the part of the source that can land on its faces.
+ */
+
+import { CUBE_FACE_BASIS } from '@lightkiln/math';
+import type { SharedBuffers } from '@lightkiln/pool';
+import { NODE_STRIDE } from '../stages/node-geometry.js';
+
+export interface SplatParams {
+  readonly size: number;
+  readonly srcWidth: number;
+  readonly srcHeight: number;
+  /** Sub-cells per source pixel and axis (even). */
+  readonly subcells: number;
+  /** cos and sin of the rotation angle (positive turns +Z towards +X). */
+  readonly rotCos: number;
+  readonly rotSin: number;
+}
+
+// Polar angle of a cube corner direction (1, 1, 1) / sqrt(3): acos(1 / sqrt(3)).
+const CAP_THETA = Math.acos(1 / Math.sqrt(3));
+
+/**
+ * buffers.src: equirect RGB float32 (row 0 = +Y); buffers.pyramid: RGB float64, level 0 at offset 0;
+ * buffers.centroids: float32 (3 per texel, face frame), level 0 at offset 0; buffers.geometry: the node
+ * table of stages/node-geometry.ts, level 0 at offset 0.
+ */
+export function splatEquirect(buffers: SharedBuffers, begin: number, end: number, params: SplatParams): void {
+  const src = buffers.src as Float32Array;
+  const dst = buffers.pyramid as Float64Array;
+  const cent = buffers.centroids as Float32Array;
+  const geo = buffers.geometry as Float64Array;
+  const n = params.size;
+  const perFace = n * n;
+  const firstFace = (begin / perFace) | 0;
+  const lastFace = ((end - 1) / perFace) | 0;
+  for (let face = firstFace; face <= lastFace; face++) {
+    splatFace(src, dst, cent, geo, face, Math.max(begin, face * perFace), Math.min(end, (face + 1) * perFace), params);
+  }
+}
+
+function splatFace(src: Float32Array, dst: Float64Array, cent: Float32Array, geo: Float64Array, face: number, begin: number, end: number, params: SplatParams): void {
+  const n = params.size;
+  const W = params.srcWidth;
+  const H = params.srcHeight;
+  const s = params.subcells;
+  const c = params.rotCos;
+  const sn = params.rotSin;
+  const B = CUBE_FACE_BASIS;
+  const b = face * 9;
+  const count = end - begin;
+  const omegaSum = new Float64Array(count);
+  const energy = new Float64Array(count * 3);
+  const lumMoment = new Float64Array(count * 3);
+  const geoMoment = new Float64Array(count * 3);
+  const minimum = new Float64Array(count * 3).fill(Infinity);
+
+  // Source rows and columns that can land on this face (a one-pixel margin for the bilinear support).
+  let theta0 = 0;
+  let theta1 = Math.PI;
+  let col0 = 0;
+  let col1 = W - 1;
+  if (face === 2) theta1 = CAP_THETA;
+  else if (face === 3) theta0 = Math.PI - CAP_THETA;
+  else {
+    // A side face reaches up to its top edge midpoints, (0, 1, 1) / sqrt(2) for +Z: theta = pi / 4.
+    theta0 = Math.PI / 4;
+    theta1 = Math.PI - theta0;
+    // Face axis in the cube frame, back to the source frame (R(-angle)), then its equirect azimuth.
+    const ax = B[b]!;
+    const az = B[b + 2]!;
+    const sx = ax * c - az * sn;
+    const sz = ax * sn + az * c;
+    const phi = Math.atan2(-sx, sz); // phi of the source parametrisation below: x = -sin phi, z = cos phi
+    const centre = (phi < 0 ? phi + 2 * Math.PI : phi) / (2 * Math.PI) * W;
+    col0 = Math.floor(centre - W / 8) - 2;
+    col1 = Math.ceil(centre + W / 8) + 2;
+  }
+  const row0 = Math.max(0, Math.floor((theta0 / Math.PI) * H) - 2);
+  const row1 = Math.min(H - 1, Math.ceil((theta1 / Math.PI) * H) + 1);
+  const cols = col1 - col0 + 1;
+  const subCols = cols * s;
+  const sinPhi = new Float64Array(subCols);
+  const cosPhi = new Float64Array(subCols);
+  for (let k = 0; k < subCols; k++) {
+    const phi = (2 * Math.PI * (col0 + (k + 0.5) / s)) / W;
+    sinPhi[k] = Math.sin(phi);
+    cosPhi[k] = Math.cos(phi);
+  }
+  const dPhi = (2 * Math.PI) / (W * s);
+  const half = n / 2;
+  for (let j = row0; j <= row1; j++) {
+    for (let sj = 0; sj < s; sj++) {
+      const ta = ((j + sj / s) * Math.PI) / H;
+      const tb = ((j + (sj + 1) / s) * Math.PI) / H;
+      const theta = ((j + (sj + 0.5) / s) * Math.PI) / H;
+      const omega = dPhi * (Math.cos(ta) - Math.cos(tb));
+      const sinT = Math.sin(theta);
+      const dy = Math.cos(theta);
+      // Bilinear rows and weight (pixel centres at j + 0.5; clamped at the poles).
+      let fv = j + (sj + 0.5) / s - 0.5;
+      if (fv < 0) fv = 0; else if (fv > H - 1) fv = H - 1;
+      const y0 = fv | 0;
+      const y1 = y0 + 1 < H ? y0 + 1 : y0;
+      const ay = fv - y0;
+      for (let k = 0; k < subCols; k++) {
+        // Source direction (x = -sin theta sin phi, y = cos theta, z = sin theta cos phi), then R(angle).
+        const sx = -sinT * sinPhi[k]!;
+        const sz = sinT * cosPhi[k]!;
+        const dx = sx * c + sz * sn;
+        const dz = -sx * sn + sz * c;
+        // Face selection (ties: z, then y, then x), as the other kernels.
+        const ax = dx < 0 ? -dx : dx;
+        const ayy = dy < 0 ? -dy : dy;
+        const az = dz < 0 ? -dz : dz;
+        let f: number;
+        let sc: number;
+        let tc: number;
+        let ma: number;
+        if (az >= ayy && az >= ax) {
+          ma = az; tc = -dy;
+          if (dz >= 0) { f = 4; sc = dx; } else { f = 5; sc = -dx; }
+        } else if (ayy >= ax) {
+          ma = ayy; sc = dx;
+          if (dy >= 0) { f = 2; tc = dz; } else { f = 3; tc = -dz; }
+        } else {
+          ma = ax; tc = -dy;
+          if (dx >= 0) { f = 0; sc = -dz; } else { f = 1; sc = dz; }
+        }
+        if (f !== face) continue;
+        let tx = ((sc / ma + 1) * half) | 0;
+        let ty = ((tc / ma + 1) * half) | 0;
+        if (tx >= n) tx = n - 1;
+        if (ty >= n) ty = n - 1;
+        const local = face * n * n + ty * n + tx - begin;
+        if (local < 0 || local >= count) continue;
+        // Bilinear source value at the sub-cell centre (wraps in longitude).
+        const fu = col0 + (k + 0.5) / s - 0.5;
+        const xf = Math.floor(fu);
+        const axw = fu - xf;
+        let xa = xf % W;
+        if (xa < 0) xa += W;
+        const xb = xa + 1 >= W ? 0 : xa + 1;
+        const i00 = (y0 * W + xa) * 3;
+        const i10 = (y0 * W + xb) * 3;
+        const i01 = (y1 * W + xa) * 3;
+        const i11 = (y1 * W + xb) * 3;
+        const w00 = (1 - axw) * (1 - ay);
+        const w10 = axw * (1 - ay);
+        const w01 = (1 - axw) * ay;
+        const w11 = axw * ay;
+        const r = src[i00]! * w00 + src[i10]! * w10 + src[i01]! * w01 + src[i11]! * w11;
+        const g = src[i00 + 1]! * w00 + src[i10 + 1]! * w10 + src[i01 + 1]! * w01 + src[i11 + 1]! * w11;
+        const bl = src[i00 + 2]! * w00 + src[i10 + 2]! * w10 + src[i01 + 2]! * w01 + src[i11 + 2]! * w11;
+        const o = local * 3;
+        omegaSum[local]! += omega;
+        energy[o]! += r * omega;
+        energy[o + 1]! += g * omega;
+        energy[o + 2]! += bl * omega;
+        if (r < minimum[o]!) minimum[o] = r;
+        if (g < minimum[o + 1]!) minimum[o + 1] = g;
+        if (bl < minimum[o + 2]!) minimum[o + 2] = bl;
+        const yo = (0.2126 * r + 0.7152 * g + 0.0722 * bl) * omega;
+        lumMoment[o]! += yo * dx;
+        lumMoment[o + 1]! += yo * dy;
+        lumMoment[o + 2]! += yo * dz;
+        geoMoment[o]! += omega * dx;
+        geoMoment[o + 1]! += omega * dy;
+        geoMoment[o + 2]! += omega * dz;
+      }
+    }
+  }
+  // The floor of the footprint fill: the per-channel minimum over the texel and its in-face neighbours,
+  // so a texel inside a sun whose sub-cells over- or undershoot its footprint trades sky-level radiance
+  // with its neighbour, never sun-level (the sun's own energy stays exactly where its sub-cells landed).
+  const floor = new Float64Array(count * 3);
+  for (let local = 0; local < count; local++) {
+    const rem = begin + local - face * n * n;
+    const ty = (rem / n) | 0;
+    const tx = rem - ty * n;
+    for (let ch = 0; ch < 3; ch++) {
+      let m = Infinity;
+      for (let yy = ty > 0 ? ty - 1 : 0; yy <= ty + 1 && yy < n; yy++) {
+        for (let xx = tx > 0 ? tx - 1 : 0; xx <= tx + 1 && xx < n; xx++) {
+          const other = face * n * n + yy * n + xx - begin;
+          if (other >= 0 && other < count) {
+            const v = minimum[other * 3 + ch]!;
+            if (v < m) m = v;
+          }
+        }
+      }
+      floor[local * 3 + ch] = m;
+    }
+  }
+  // Finish: fill the footprint the sub-cells missed with the floor, move moments to the face frame.
+  for (let local = 0; local < count; local++) {
+    const item = begin + local;
+    const rem = item - face * n * n;
+    const gi = rem * NODE_STRIDE;
+    const omegaExact = geo[gi + 3]!;
+    const o = local * 3;
+    const po = item * 3;
+    const missing = omegaExact - omegaSum[local]!;
+    if (omegaSum[local]! === 0) {
+      // No sub-cell landed here (a small corner texel under a coarse source): the source at its centre.
+      centreSample(dst, po, src, W, H, geo[gi]!, geo[gi + 1]!, geo[gi + 2]!, b, c, sn);
+      cent[po] = 0; cent[po + 1] = 0; cent[po + 2] = 0;
+      continue;
+    }
+    const r = (energy[o]! + missing * floor[o]!) / omegaExact;
+    const g = (energy[o + 1]! + missing * floor[o + 1]!) / omegaExact;
+    const bl = (energy[o + 2]! + missing * floor[o + 2]!) / omegaExact;
+    dst[po] = r;
+    dst[po + 1] = g;
+    dst[po + 2] = bl;
+    const yRef = 0.2126 * floor[o]! + 0.7152 * floor[o + 1]! + 0.0722 * floor[o + 2]!;
+    const yMean = 0.2126 * r + 0.7152 * g + 0.0722 * bl;
+    if (!(yMean > 0)) {
+      cent[po] = 0; cent[po + 1] = 0; cent[po + 2] = 0;
+      continue;
+    }
+    // Texel geometric mean (face frame) times its solid angle, minus what the sub-cells covered.
+    const mc = geo[gi]!;
+    const mu = geo[gi + 1]!;
+    const mv = geo[gi + 2]!;
+    const gx = geoMoment[o]!;
+    const gy = geoMoment[o + 1]!;
+    const gz = geoMoment[o + 2]!;
+    const gc = gx * B[b]! + gy * B[b + 1]! + gz * B[b + 2]!;
+    const gu = gx * B[b + 3]! + gy * B[b + 4]! + gz * B[b + 5]!;
+    const gv = gx * B[b + 6]! + gy * B[b + 7]! + gz * B[b + 8]!;
+    const lx = lumMoment[o]!;
+    const ly = lumMoment[o + 1]!;
+    const lz = lumMoment[o + 2]!;
+    const lc = lx * B[b]! + ly * B[b + 1]! + lz * B[b + 2]! + yRef * (omegaExact * mc - gc);
+    const lu = lx * B[b + 3]! + ly * B[b + 4]! + lz * B[b + 5]! + yRef * (omegaExact * mu - gu);
+    const lv = lx * B[b + 6]! + ly * B[b + 7]! + lz * B[b + 8]! + yRef * (omegaExact * mv - gv);
+    const inv = 1 / (yMean * omegaExact);
+    cent[po] = lc * inv - mc;
+    cent[po + 1] = lu * inv - mu;
+    cent[po + 2] = lv * inv - mv;
+  }
+}
+
+/** Bilinear source value in the direction of face-frame vector (mc, mu, mv) of face basis b. */
+function centreSample(dst: Float64Array, po: number, src: Float32Array, W: number, H: number, mc: number, mu: number, mv: number, b: number, c: number, sn: number): void {
+  const B = CUBE_FACE_BASIS;
+  const dx = B[b]! * mc + B[b + 3]! * mu + B[b + 6]! * mv;
+  const dy = B[b + 1]! * mc + B[b + 4]! * mu + B[b + 7]! * mv;
+  const dz = B[b + 2]! * mc + B[b + 5]! * mu + B[b + 8]! * mv;
+  const len = Math.sqrt(dx * dx + dy * dy + dz * dz);
+  // Source direction R(-angle) d, then the equirect mapping (u = 0.5 + atan2(x, -z) / 2 pi, v = acos(y) / pi).
+  const sx = dx * c - dz * sn;
+  const sz = dx * sn + dz * c;
+  const yy = dy / len;
+  let fu = (0.5 + Math.atan2(sx, -sz) / (2 * Math.PI)) * W - 0.5;
+  let fv = (Math.acos(yy > 1 ? 1 : yy < -1 ? -1 : yy) / Math.PI) * H - 0.5;
+  if (fv < 0) fv = 0; else if (fv > H - 1) fv = H - 1;
+  if (fu < 0) fu += W;
+  const x0 = Math.floor(fu);
+  const y0 = fv | 0;
+  const ax = fu - x0;
+  const ay = fv - y0;
+  const xa = x0 >= W ? x0 - W : x0;
+  const xb = xa + 1 >= W ? 0 : xa + 1;
+  const y1 = y0 + 1 < H ? y0 + 1 : y0;
+  for (let ch = 0; ch < 3; ch++) {
+    dst[po + ch] = (1 - ax) * (1 - ay) * src[(y0 * W + xa) * 3 + ch]! + ax * (1 - ay) * src[(y0 * W + xb) * 3 + ch]!
+      + (1 - ax) * ay * src[(y1 * W + xa) * 3 + ch]! + ax * ay * src[(y1 * W + xb) * 3 + ch]!;
+  }
+}

@@ -1,0 +1,122 @@
+/**
+ * Geometry of every pyramid texel ("node") that the hierarchical quadrature needs, for one face (all six
+ * faces are rotations of it, see CUBE_FACE_BASIS): per texel the exact solid angle, the mean direction
+ * E[d] over the texel (its first moment divided by the solid angle, in the face frame C, U, V), the length
+ * of that mean (1 for a point, less the wider the texel), and the angular radius around it.
+ * Level-0 moments come from 4 x 4 Gauss-Legendre points per texel (Abramowitz & Stegun 1964, table 25.4);
+ * coarser levels sum their four children, so every level integrates the same function exactly.
+ */
+
+import { cubeTexelSolidAngle } from '@lightkiln/math';
+import { sharedFloat64 } from '@lightkiln/pool';
+
+/** Numbers per texel in the table: mean (C, U, V), solid angle, cos rho, sin rho, rho, |mean|. */
+export const NODE_STRIDE = 8;
+
+export interface NodeGeometry {
+  /** Face size of each level, level 0 first (as the pyramid). */
+  readonly sizes: readonly number[];
+  /** Float offset of each level's face table in data. */
+  readonly offsets: readonly number[];
+  readonly data: Float64Array;
+}
+
+// 4-point Gauss-Legendre nodes and weights on [-1, 1] (Abramowitz & Stegun 1964, table 25.4).
+const GL_X = [-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526];
+const GL_W = [0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538];
+
+const cache = new Map<number, NodeGeometry>();
+
+/** The node table of a pyramid whose level 0 has face size `size` (memoised per size). */
+export function nodeGeometry(size: number): NodeGeometry {
+  const hit = cache.get(size);
+  if (hit !== undefined) return hit;
+  const sizes: number[] = [];
+  const offsets: number[] = [];
+  let length = 0;
+  for (let n = size; n >= 1; n >>= 1) {
+    sizes.push(n);
+    offsets.push(length);
+    length += n * n * NODE_STRIDE;
+  }
+  const data = sharedFloat64(length);
+  // Level 0: first moments integral (1, u, v) / r^4 du dv (d = (C + uU + vV) / r, dw = du dv / r^3).
+  const n0 = size;
+  const h = 1 / n0;
+  for (let y = 0; y < n0; y++) {
+    for (let x = 0; x < n0; x++) {
+      const uc = (2 * x + 1) * h - 1;
+      const vc = (2 * y + 1) * h - 1;
+      let mc = 0;
+      let mu = 0;
+      let mv = 0;
+      for (let j = 0; j < 4; j++) {
+        const v = vc + GL_X[j]! * h;
+        for (let i = 0; i < 4; i++) {
+          const u = uc + GL_X[i]! * h;
+          const q = 1 + u * u + v * v;
+          const w = (GL_W[i]! * GL_W[j]! * h * h) / (q * q);
+          mc += w;
+          mu += u * w;
+          mv += v * w;
+        }
+      }
+      const o = (y * n0 + x) * NODE_STRIDE;
+      data[o] = mc;
+      data[o + 1] = mu;
+      data[o + 2] = mv;
+      data[o + 3] = cubeTexelSolidAngle(x, y, n0);
+    }
+  }
+  // Coarser levels: moments and solid angles add up over the four children.
+  for (let k = 1; k < sizes.length; k++) {
+    const n = sizes[k]!;
+    const c = n * 2;
+    for (let y = 0; y < n; y++) {
+      for (let x = 0; x < n; x++) {
+        const o = offsets[k]! + (y * n + x) * NODE_STRIDE;
+        for (let dy = 0; dy < 2; dy++) {
+          for (let dx = 0; dx < 2; dx++) {
+            const oc = offsets[k - 1]! + ((2 * y + dy) * c + 2 * x + dx) * NODE_STRIDE;
+            for (let q = 0; q < 3; q++) data[o + q]! += data[oc + q]!;
+          }
+        }
+        data[o + 3] = cubeTexelSolidAngle(x, y, n);
+      }
+    }
+  }
+  // Moments -> means; radius = the largest angle from the mean direction to a texel corner.
+  for (let k = 0; k < sizes.length; k++) {
+    const n = sizes[k]!;
+    for (let y = 0; y < n; y++) {
+      for (let x = 0; x < n; x++) {
+        const o = offsets[k]! + (y * n + x) * NODE_STRIDE;
+        const omega = data[o + 3]!;
+        const mc = data[o]! / omega;
+        const mu = data[o + 1]! / omega;
+        const mv = data[o + 2]! / omega;
+        const len = Math.sqrt(mc * mc + mu * mu + mv * mv);
+        let minCos = 1;
+        for (let cy = 0; cy < 2; cy++) {
+          for (let cx = 0; cx < 2; cx++) {
+            const u = (2 * (x + cx)) / n - 1;
+            const v = (2 * (y + cy)) / n - 1;
+            const cos = (mc + u * mu + v * mv) / (len * Math.sqrt(1 + u * u + v * v));
+            if (cos < minCos) minCos = cos;
+          }
+        }
+        const rho = Math.acos(Math.max(-1, Math.min(1, minCos)));
+        data[o] = mc;
+        data[o + 1] = mu;
+        data[o + 2] = mv;
+        data[o + 4] = Math.cos(rho);
+        data[o + 5] = Math.sin(rho);
+        data[o + 6] = rho;
+        data[o + 7] = len;
+      }
+    }
+  }
+  const geometry: NodeGeometry = { sizes, offsets, data };
+  cache.set(size, geometry);
+  return geometry;
+}
