@@ -15,8 +15,9 @@ import { buildPyramid } from './stages/pyramid.js';
 import { decodeSource } from './stages/source.js';
 import { prefilterLevels, type LevelRequest, type LevelResult } from './stages/specular.js';
 
-export type SweepMethod = 'plain' | 'filtered' | 'filtered-rotated';
-export const SWEEP_METHODS: readonly SweepMethod[] = ['plain', 'filtered', 'filtered-rotated'];
+/** 'quadrature' is the default deterministic estimator: one point (it takes no sample budget). */
+export type SweepMethod = 'plain' | 'filtered' | 'filtered-rotated' | 'quadrature';
+export const SWEEP_METHODS: readonly SweepMethod[] = ['plain', 'filtered', 'filtered-rotated', 'quadrature'];
 
 export interface SweepOptions {
   /** The probe: any recipe input (path or bytes); the recipe's other fields set size and roughness. */
@@ -131,10 +132,12 @@ export async function sweepBudgets(options: SweepOptions): Promise<SweepResult> 
       await prefilterLevels(pyramid, levelRequests(recipe.roughness.map(() => 16)), { ...recipe, quality: 'sampled' }, ctx);
       const points: SweepPoint[] = [];
       for (const method of methods) {
-        for (const budget of budgets) {
+        for (const budget of method === 'quadrature' ? (['default'] as const) : budgets) {
           if (options.signal?.aborted) throw aborted(options.signal.reason);
           const samples = budget === 'default' ? presetSamples : recipe.roughness.map(() => budget);
-          const spec = { ...recipe, quality: 'sampled' as const, filtered: method !== 'plain', rotateSequence: method === 'filtered-rotated' };
+          const spec = method === 'quadrature'
+            ? { ...recipe, quality: 'quadrature' as const }
+            : { ...recipe, quality: 'sampled' as const, filtered: method !== 'plain', rotateSequence: method === 'filtered-rotated' };
           const times: number[] = [];
           let levels: LevelResult[] = [];
           for (let r = 0; r < repeats; r++) {
@@ -210,8 +213,8 @@ function sweepSvg(result: SweepResult): string {
     { title: 'worst-level relative RMSE', value: (p) => Math.max(...p.relativeRmse) },
     { title: 'worst-level 99.9th-percentile error', value: (p) => Math.max(...p.p999) },
   ];
-  const colours: Record<SweepMethod, string> = { plain: '#c0392b', filtered: '#2471a3', 'filtered-rotated': '#229954' };
-  const pts = result.points.filter((p) => p.budget !== 'default');
+  const colours: Record<SweepMethod, string> = { plain: '#c0392b', filtered: '#2471a3', 'filtered-rotated': '#229954', quadrature: '#7d3c98' };
+  const pts = result.points.filter((p) => p.budget !== 'default' || p.method === 'quadrature');
   const xs = pts.map((p) => Math.log10(Math.max(p.medianMs, 1e-3)));
   const x0 = Math.floor(Math.min(...xs));
   const x1 = Math.ceil(Math.max(...xs));

@@ -96,9 +96,16 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
   const a2 = params.alphaSquared;
   const theta = params.theta;
   const lobeWidth = params.lobeWidth;
-  const yMean = params.meanLuminance;
-  const negligible = params.negligible;
+  const yGlobal = params.meanLuminance;
   const top = params.levels - 1;
+  // The level of 4 x 4 faces (or the finest, for smaller pyramids): its texel around n sets the local
+  // luminance scale of the tolerances, so dark regions of a scene lit by a bright sun are not
+  // integrated against the sun's share of the mean.
+  const localLevel = top >= 2 ? top - 2 : 0;
+  const localSize = table[localLevel * LEVEL_TABLE_STRIDE]!;
+  const localOffset = table[localLevel * LEVEL_TABLE_STRIDE + 1]!;
+  const perFaceOut = size * size;
+  const negligible = params.negligible;
   const centre = new Float64Array(3);
   const stack = new Int32Array(4 * (8 + 4 * params.levels));
   for (let item = begin; item < end; item++) {
@@ -107,6 +114,12 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
     const nx = centre[0]!;
     const ny = centre[1]!;
     const nz = centre[2]!;
+    const outFace = (local / perFaceOut) | 0;
+    const outRem = local - outFace * perFaceOut;
+    const outY = (outRem / size) | 0;
+    const lo = localOffset + ((outFace * localSize + (((outY * localSize) / size) | 0)) * localSize + ((((outRem - outY * size) * localSize) / size) | 0)) * 3;
+    const yLocal = 0.2126 * pyr[lo]! + 0.7152 * pyr[lo + 1]! + 0.0722 * pyr[lo + 2]!;
+    const yMean = yLocal > 0 && yLocal < yGlobal ? yLocal : yGlobal;
     let sr = 0;
     let sg = 0;
     let sb = 0;

@@ -8,7 +8,6 @@ import {
   alphaFromPerceptualRoughness, FOUR_PI, ggxD, hammersleyPoint, luminance, rotateUnit, rotationOffsetsForSeed, sampleGgxHalfVector,
 } from '@lightkiln/math';
 import { sharedFloat32, sharedFloat64, sharedInt32, type Segment } from '@lightkiln/pool';
-import type { ReferenceParams } from '../kernels/convolve.js';
 import { LEVEL_TABLE_STRIDE, type QuadratureParams } from '../kernels/quadrature.js';
 import { nodeGeometry } from './node-geometry.js';
 import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
@@ -148,7 +147,7 @@ export function lobeIntegral(alphaSquared: number): number {
 }
 
 /** The default: every requested level by the hierarchical quadrature (kernels/quadrature.ts), one pool job. */
-async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext): Promise<LevelResult[]> {
+async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext, exhaustive = false): Promise<LevelResult[]> {
   const geometry = nodeGeometry(pyramid.sizes[0]!);
   const levels = pyramid.sizes.length;
   const levelTable = sharedInt32(levels * LEVEL_TABLE_STRIDE);
@@ -168,11 +167,11 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
     const alpha = alphaFromPerceptualRoughness(req.roughness);
     const params: QuadratureParams = {
       size: req.size, levelBegin: texels, dstOffset: texels * 3, alphaSquared: alpha * alpha,
-      theta: QUADRATURE_THETA, lobeWidth: QUADRATURE_GAMMA * alpha, meanLuminance, levels,
-      negligible: QUADRATURE_NEGLIGIBLE * lobeIntegral(alpha * alpha),
+      theta: exhaustive ? 0 : QUADRATURE_THETA, lobeWidth: QUADRATURE_GAMMA * alpha, meanLuminance, levels,
+      negligible: exhaustive ? 0 : QUADRATURE_NEGLIGIBLE * lobeIntegral(alpha * alpha),
     };
     for (let f = 0; f < 6; f++) {
-      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: 200, rowLength: req.size, label: `level ${req.level} face ${f}` });
+      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: exhaustive ? 4 * pyramid.sizes[0]! ** 2 : 200, rowLength: req.size, label: `level ${req.level} face ${f}` });
       segmentParams.push(params);
     }
     texels += 6 * req.size * req.size;
@@ -181,6 +180,12 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
   const visits = sharedFloat32(texels);
   const buffers = { pyramid: pyramid.data, centroids: pyramid.centroids, geometry: geometry.data, levelTable, dst, visits };
   await ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  if (exhaustive) {
+    return requests.map((req, r) => {
+      const p = segmentParams[r * 6]!;
+      return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + 6 * req.size * req.size * 3), usedSamples: 6 * pyramid.sizes[0]! ** 2, relativeErrorEstimate: 0 };
+    });
+  }
   // The error estimate: every eighth row of every face again with half the opening angle (about four
   // times the nodes); twice the RMS difference, over the level's mean luminance.
   const fine = sharedFloat32(texels * 3);
@@ -228,7 +233,8 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
 /** Computes the requested levels (all >= 1) in one pool job, so tiles of all levels interleave. */
 export async function prefilterLevels(pyramid: Pyramid, requests: readonly LevelRequest[], options: SpecularOptions, ctx: StageContext): Promise<LevelResult[]> {
   if (requests.length === 0) return [];
-  if (options.quality === 'reference') return referenceLevels(pyramid, requests, ctx);
+  // The reference: the same leaf model with every level-0 texel a leaf (no tree, no tolerance).
+  if (options.quality === 'reference') return quadratureLevels(pyramid, requests, ctx, true);
   if (options.quality === 'quadrature') return quadratureLevels(pyramid, requests, ctx);
   const sets = requests.map((req) => buildSampleSet(alphaFromPerceptualRoughness(req.roughness), pyramid, {
     sampleCount: req.samples,
@@ -293,35 +299,6 @@ export function referenceQuadrature(alpha: number, srcSize: number): { subdivisi
   const lobe = 2 * alpha;
   const subdivision = Math.max(1, Math.min(8, Math.ceil(texelAngle / (0.15 * lobe))));
   return { subdivision, cosNear: Math.cos(Math.min(Math.PI, 5 * lobe + 2 * texelAngle)) };
-}
-
-/** The `reference` mode: brute-force GGX quadrature over the level-0 cube for each requested level. */
-async function referenceLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext): Promise<LevelResult[]> {
-  const srcSize = pyramid.sizes[0]!;
-  let texels = 0;
-  const segments = [];
-  const segmentParams: ReferenceParams[] = [];
-  const points: number[] = [];
-  for (const req of requests) {
-    const alpha = alphaFromPerceptualRoughness(req.roughness);
-    const { subdivision, cosNear } = referenceQuadrature(alpha, srcSize);
-    const params: ReferenceParams = { srcSize, subdivision, cosNear, size: req.size, levelBegin: texels, dstOffset: texels * 3, alpha };
-    const nearFraction = (1 - cosNear) / 2; // share of the sphere that gets the fine points
-    const cost = Math.round(6 * srcSize * srcSize * (1 + nearFraction * subdivision * subdivision));
-    points.push(cost);
-    for (let f = 0; f < 6; f++) {
-      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: cost, rowLength: req.size, label: `reference level ${req.level} face ${f}` });
-      segmentParams.push(params);
-    }
-    texels += 6 * req.size * req.size;
-  }
-  const dst = sharedFloat32(texels * 3);
-  await ctx.pool.run({ kernel: kernel('referenceSpecular'), buffers: { pyramid: pyramid.data, dst }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
-  return requests.map((req, r) => {
-    const p = segmentParams[r * 6]!;
-    const n = 6 * req.size * req.size;
-    return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: points[r]!, relativeErrorEstimate: 0 };
-  });
 }
 
 /** Level 0 of the chain: the resampled cube itself (r = 0 is the mirror). */
