@@ -3,6 +3,7 @@
 import { writeReport } from './common.js';
 import { bakeBench } from './bake.bench.js';
 import { codecsBench } from './codecs.bench.js';
+import { estimatorsBench } from './estimators.bench.js';
 import { kernelsBench } from './kernels.bench.js';
 import { sweepBench } from './sweep.bench.js';
 import { mathBench } from './math.bench.js';
@@ -12,6 +13,7 @@ import { specularBench } from './specular.bench.js';
 const suites: Record<string, () => Promise<void>> = {
   math: mathBench,
   specular: specularBench,
+  estimators: estimatorsBench,
   kernels: kernelsBench,
   pool: poolBench,
   codecs: codecsBench,
