@@ -186,14 +186,14 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
       return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + 6 * req.size * req.size * 3), usedSamples: 6 * pyramid.sizes[0]! ** 2, relativeErrorEstimate: 0 };
     });
   }
-  // The error estimate: every eighth row of every face again with half the opening angle (about four
+  // The error estimate: every sixteenth row of every face again with half the opening angle (about four
   // times the nodes); twice the RMS difference, over the level's mean luminance.
   const fine = sharedFloat32(texels * 3);
   const checkSegments: Segment[] = [];
   const checkParams: QuadratureParams[] = [];
   for (let r = 0; r < requests.length; r++) {
     const p = segmentParams[r * 6]!;
-    const step = Math.max(1, p.size >> 3);
+    const step = Math.max(1, p.size >> 4);
     for (let f = 0; f < 6; f++) {
       for (let y = step >> 1; y < p.size; y += step) {
         const first = p.levelBegin + (f * p.size + y) * p.size;
