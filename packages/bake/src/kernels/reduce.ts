@@ -1,7 +1,7 @@
 /**
  * Stage 3 kernel: one step of the source pyramid. A parent texel is the solid-angle-weighted mean of its
  * 2 x 2 children, so every level keeps the radiance integral of the level above (exact texel solid
- * angles, REFERENCES.md sec. 9).
+ * angles from cubeTexelSolidAngle in @lightkiln/math).
  */
 
 import { cubeTexelSolidAngle } from '@lightkiln/math';
