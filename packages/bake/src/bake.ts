@@ -482,7 +482,7 @@ export class Baker {
         conventions: CONVENTIONS,
         levels: specular.meta.levels,
         sh: {
-          basis: 'real SH9, DESIGN.md order (Y00, Y1-1 y, Y10 z, Y11 x, Y2-2 xy, Y2-1 yz, Y20 3z^2-1, Y21 xz, Y22 x^2-y^2), no Condon-Shortley phase',
+          basis: 'real SH9, order (Y00, Y1-1 y, Y10 z, Y11 x, Y2-2 xy, Y2-1 yz, Y20 3z^2-1, Y21 xz, Y22 x^2-y^2), no Condon-Shortley phase',
           window: { kind: r.irradiance.shWindow, width: r.irradiance.shWindowWidth },
           radiance: shTriples(irradiance.meta.radiance),
           irradiance: shTriples(irradiance.meta.irradiance),

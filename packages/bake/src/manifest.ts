@@ -1,4 +1,4 @@
-/** The `<probe>.probe.json` manifest (DESIGN.md "Files"): everything a consumer needs without the code. */
+/** The `<probe>.probe.json` manifest (the repo README, "The library"): everything a consumer needs without the code. */
 
 import type { ResolvedRecipe } from './recipe.js';
 import type { SanitizeCounts } from './stages/source.js';
@@ -59,7 +59,7 @@ export const CONVENTIONS: Readonly<Record<string, string>> = {
   rotation: 'about +Y, right-handed; the cube at d shows the source at R(-rotationDeg) d',
 };
 
-/** SH coefficients as 9 [r, g, b] triples in DESIGN.md order. */
+/** SH coefficients as 9 [r, g, b] triples in the order of the manifest's `sh.basis`. */
 export function shTriples(coeffs: ArrayLike<number>): [number, number, number][] {
   return Array.from({ length: 9 }, (_, k) => [coeffs[3 * k]!, coeffs[3 * k + 1]!, coeffs[3 * k + 2]!] as [number, number, number]);
 }

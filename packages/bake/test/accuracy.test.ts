@@ -64,7 +64,7 @@ describe('specular levels against the reference convolution (target: 1% relative
     for (const e of errors) expect(e).toBeLessThan(0.01);
   });
 
-  it('puts a +X feature on the +X face and turns +Z towards +X for a positive rotation (DESIGN.md)', async () => {
+  it('puts a +X feature on the +X face and turns +Z towards +X for a positive rotation (right-handed about +Y)', async () => {
     const lobe = (ax: number, ay: number, az: number): Radiance => (x, y, z) => {
       const v = Math.exp((ax * x + ay * y + az * z - 1) * 20) * 10 + 0.1;
       return [v, v, v];

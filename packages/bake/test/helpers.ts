@@ -28,7 +28,7 @@ export function equirectOf(f: Radiance, width: number, height: number): Uint8Arr
   return encodePfm({ width, height, channels: 3, data });
 }
 
-/** Relative RMSE in BT.709 luminance between two RGB arrays (DESIGN.md error convention). */
+/** Relative RMSE in BT.709 luminance between two RGB arrays (the error convention of the bake README). */
 export function relativeRmse(test: Float32Array, ref: Float32Array): number {
   let se = 0;
   let sy = 0;

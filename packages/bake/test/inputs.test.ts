@@ -23,7 +23,7 @@ function rgbOf(level: { data: Float32Array }): Float32Array {
   return out;
 }
 
-describe('cube inputs (DESIGN.md face order and orientation)', () => {
+describe('cube inputs (face order +X, -X, +Y, -Y, +Z, -Z and the OpenGL selection-table orientation)', () => {
   it('rebakes from our own KTX 2.0 cubemap: level 0 reproduces the source cube', async () => {
     const first = await baker.bake({ input: { bytes: sky, name: 'sky.pfm' }, size: 32, samples: 'draft', output: { specularFormat: 'rgba32f' }, dfg: { enabled: false } });
     const cubeFile = first.artifacts[0]!.bytes;

@@ -100,7 +100,7 @@ function lutAt(lut: Ktx2File, nDotV: number, r: number): [number, number] {
   return [v(0), v(1)];
 }
 
-/** Karis 2014 analytic DFG fit (REFERENCES.md sec. 5, coarse), used only when no table was baked. */
+/** Karis 2014 analytic DFG fit ("Physically Based Shading on Mobile", Unreal Engine blog; from memory, coarse), used only when no table was baked. */
 function analyticDfg(nDotV: number, r: number): [number, number] {
   const rx = r * -1 + 1;
   const ry = r * -0.0275 + 0.0425;

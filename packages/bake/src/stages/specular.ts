@@ -34,7 +34,7 @@ export interface SampleSet {
  * point i of N (Walter et al. 2007 GGX sampling), l = 2 (n.h) h - n in the local frame (n = v = z),
  * weight NoL, and for filtered importance sampling the source level
  * lod = max(0.5 log2(Omega_s / Omega_p) + bias, 0), Omega_s = 1 / (N p(l)), p(l) = D(h) / 4 (n = v),
- * Omega_p = 4 pi / (6 w^2) for the level-0 face width w (Krivanek & Colbert 2008; REFERENCES.md sec. 7).
+ * Omega_p = 4 pi / (6 w^2) for the level-0 face width w (Krivanek & Colbert 2008, "Real-time Shading with Filtered Importance Sampling", CGF 27(4)).
  * Samples with NoL <= 0 are dropped (they carry no weight).
  */
 export function buildSampleSet(alpha: number, pyramid: Pyramid, options: SampleSetOptions): SampleSet {
