@@ -17,7 +17,7 @@ import { aborted, invalidOption, LightkilnError, toLightkilnError, unsafePath } 
 import { sha256Hex, stageKey } from './hash.js';
 import { CONVENTIONS, MANIFEST_SCHEMA_VERSION, shTriples, TOOL_NAME, TOOL_VERSION, type Manifest, type ManifestArtifact, type ManifestLevel } from './manifest.js';
 import { resolveRecipe, SAFE_NAME, type Recipe, type ResolvedRecipe } from './recipe.js';
-import type { BakeProgress, StageContext } from './stages/context.js';
+import { warmPool, type BakeProgress, type StageContext } from './stages/context.js';
 import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
 import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
 import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
@@ -172,6 +172,7 @@ class BakeRun {
   }
 
   source(): Promise<SourceImage> {
+    if (this.#source === null) warmPool(this.ctx);
     this.#source ??= this.#timed('decode', async () => {
       const entry = await this.cache.get(this.keys.source);
       if (entry !== null) {

@@ -101,6 +101,25 @@ export class WorkerPool {
     return this.#piscina;
   }
 
+  /**
+   * Starts the workers now and has them import the kernel module at `moduleUrl`, so the first job does
+   * not wait for thread start-up and module compilation (call it before slow serial work, e.g. decoding
+   * the input). Best effort: failures surface in the first real job instead. No-op inline.
+   */
+  warm(moduleUrl: string): void {
+    if (this.#closed || this.threads === 0 || this.#piscina !== null) return;
+    let piscina: Piscina;
+    try {
+      piscina = this.#workers();
+    } catch {
+      return;
+    }
+    for (let i = 0; i < this.threads; i++) {
+      const task: TileTask = { kernel: { moduleUrl, name: '' }, buffers: {}, begin: 0, end: 0, params: undefined };
+      piscina.run(task).catch(() => undefined);
+    }
+  }
+
   /** Runs every tile of a job; resolves when all are written, rejects on abort or the first failure. */
   run<P>(job: PoolJob<P>): Promise<JobResult> {
     if (this.#closed) return Promise.reject(poolClosedError());

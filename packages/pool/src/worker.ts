@@ -12,6 +12,11 @@ export interface TileTask {
 }
 
 export default async function runTile(task: TileTask): Promise<number> {
+  // A warm-up task (WorkerPool.warm): load the module only.
+  if (task.kernel.name === '') {
+    await import(task.kernel.moduleUrl);
+    return 0;
+  }
   const kernel = await loadKernel(task.kernel);
   kernel(task.buffers, task.begin, task.end, task.params);
   return task.end - task.begin;

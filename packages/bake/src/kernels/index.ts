@@ -5,6 +5,7 @@ import { convolveIrradiance, referenceSpecular } from './convolve.js';
 import { integrateDfgTable } from './dfg.js';
 import { reducePyramid } from './reduce.js';
 import { resampleCube, resampleEquirect } from './resample.js';
+import { buildNodeTable } from './node-table.js';
 import { prefilterQuadrature } from './quadrature.js';
 import { splatEquirect } from './splat.js';
 import { prefilterSpecular } from './specular.js';
@@ -15,6 +16,7 @@ export const kernels: KernelModule['kernels'] = {
   reducePyramid,
   prefilterSpecular,
   prefilterQuadrature,
+  buildNodeTable,
   splatEquirect,
   referenceSpecular,
   convolveIrradiance,

@@ -15,12 +15,12 @@
  * equals E_G when the light is uniform.
  */
 
-import { CUBE_FACE_BASIS } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
 import { NODE_STRIDE } from '../stages/node-geometry.js';
+import { NODE_TABLE_STRIDE } from './node-table.js';
 import { texelCentreDirection } from './texel.js';
 
-/** Int32 numbers per pyramid level in buffers.levelTable: size, RGB float offset, node offset, geometry offset. */
+/** Int32 numbers per pyramid level in buffers.levelTable: size, RGB float offset, first texel, geometry offset. */
 export const LEVEL_TABLE_STRIDE = 4;
 
 export interface QuadratureParams {
@@ -42,6 +42,11 @@ export interface QuadratureParams {
    * integral times the tolerance) is accepted as it is, wherever it lies.
    */
   readonly negligible: number;
+  /** 1 / (the lobe integral times the share below which the opening angle widens). */
+  readonly shareScale: number;
+  /** The exact integral of w over the sphere, and the luminance ratio above which a node's light is normalised by it. */
+  readonly lobeIntegral: number;
+  readonly brightRatio: number;
 }
 
 /** w(c) up to a constant: D(h) max(c, 0) with v = n (see the module comment). */
@@ -80,18 +85,16 @@ function lobeMean(cMean: number, m: number, cosBeta: number, a2: number): number
 }
 
 /**
- * buffers.pyramid (RGB float64), buffers.centroids (float32, 3 a texel), buffers.geometry (node table,
- * float64), buffers.levelTable (int32), buffers.dst (RGB float32); buffers.visits (float32, one per item):
- * nodes accumulated for the item (the cost statistic of the manifest).
+ * buffers.nodes (the node table of kernels/node-table.ts, float32), buffers.geometry (node geometry of one
+ * face, float64), buffers.levelTable (int32), buffers.dst (RGB float32); buffers.visits (float32, one per
+ * item): nodes accumulated for the item (the cost statistic of the manifest).
  */
 export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: number, params: QuadratureParams): void {
-  const pyr = buffers.pyramid as Float64Array;
-  const cent = buffers.centroids as Float32Array;
+  const nodes = buffers.nodes as Float32Array;
   const geo = buffers.geometry as Float64Array;
   const table = buffers.levelTable as Int32Array;
   const dst = buffers.dst as Float32Array;
   const visits = buffers.visits as Float32Array;
-  const B = CUBE_FACE_BASIS;
   const size = params.size;
   const a2 = params.alphaSquared;
   const theta = params.theta;
@@ -103,9 +106,11 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
   // integrated against the sun's share of the mean.
   const localLevel = top >= 2 ? top - 2 : 0;
   const localSize = table[localLevel * LEVEL_TABLE_STRIDE]!;
-  const localOffset = table[localLevel * LEVEL_TABLE_STRIDE + 1]!;
+  const localFirst = table[localLevel * LEVEL_TABLE_STRIDE + 2]!;
   const perFaceOut = size * size;
   const negligible = params.negligible;
+  const shareScale = params.shareScale;
+  const invExact = 1 / params.lobeIntegral;
   const centre = new Float64Array(3);
   const stack = new Int32Array(4 * (8 + 4 * params.levels));
   for (let item = begin; item < end; item++) {
@@ -117,12 +122,17 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
     const outFace = (local / perFaceOut) | 0;
     const outRem = local - outFace * perFaceOut;
     const outY = (outRem / size) | 0;
-    const lo = localOffset + ((outFace * localSize + (((outY * localSize) / size) | 0)) * localSize + ((((outRem - outY * size) * localSize) / size) | 0)) * 3;
-    const yLocal = 0.2126 * pyr[lo]! + 0.7152 * pyr[lo + 1]! + 0.0722 * pyr[lo + 2]!;
+    const lt = localFirst + (outFace * localSize + (((outY * localSize) / size) | 0)) * localSize + ((((outRem - outY * size) * localSize) / size) | 0);
+    const yLocal = nodes[lt * NODE_TABLE_STRIDE + 6]!;
     const yMean = yLocal > 0 && yLocal < yGlobal ? yLocal : yGlobal;
+    const negligibleY = negligible * yMean;
     let sr = 0;
     let sg = 0;
     let sb = 0;
+    let br = 0;
+    let bg = 0;
+    let bb = 0;
+    const brightY = params.brightRatio * yMean;
     let den = 0;
     let accepted = 0;
     // Stack entries: level, face, x, y.
@@ -141,77 +151,79 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
       const tk = k * LEVEL_TABLE_STRIDE;
       const nk = table[tk]!;
       const rem = ty * nk + tx;
-      const t = face * nk * nk + rem;
+      const no = (table[tk + 2]! + face * nk * nk + rem) * NODE_TABLE_STRIDE;
       const gi = table[tk + 3]! + rem * NODE_STRIDE;
-      const b = face * 9;
-      const mc = geo[gi]!;
-      const mu = geo[gi + 1]!;
-      const mv = geo[gi + 2]!;
-      const mLen = geo[gi + 7]!;
-      // Geometric mean direction in the world frame and its cosine with n.
-      const gx = B[b]! * mc + B[b + 3]! * mu + B[b + 6]! * mv;
-      const gy = B[b + 1]! * mc + B[b + 4]! * mu + B[b + 7]! * mv;
-      const gz = B[b + 2]! * mc + B[b + 5]! * mu + B[b + 8]! * mv;
-      const cG = nx * gx + ny * gy + nz * gz;
-      let cosPsi = cG / mLen;
+      // Cosine between n and the node's geometric mean direction.
+      let cosPsi = nx * nodes[no]! + ny * nodes[no + 1]! + nz * nodes[no + 2]!;
       if (cosPsi > 1) cosPsi = 1; else if (cosPsi < -1) cosPsi = -1;
       const sinPsi = Math.sqrt(1 - cosPsi * cosPsi);
       const cosR = geo[gi + 4]!;
       const sinR = geo[gi + 5]!;
       // Wholly below the horizon of n (psi - rho >= pi / 2): no weight.
       if (cosPsi * cosR + sinPsi * sinR <= 0) continue;
-      const po = table[tk + 1]! + t * 3;
-      const r = pyr[po]!;
-      const g = pyr[po + 1]!;
-      const bl = pyr[po + 2]!;
-      const y = 0.2126 * r + 0.7152 * g + 0.0722 * bl;
+      const y = nodes[no + 6]!;
+      const omega = geo[gi + 3]!;
       // Largest n.l in the node, cos(psi - rho) (1 when n lies inside it), bounds w over the node.
       const wMax = lobe(sinPsi * cosR <= cosPsi * sinR ? 1 : cosPsi * cosR + sinPsi * sinR, a2);
       if (k > 0) {
-        const bound = geo[gi + 3]! * wMax * (y > yMean ? y : yMean);
-        const straddles = bound > negligible * yMean && cosPsi * cosR - sinPsi * sinR < 0;
-        const rho = geo[gi + 6]!;
-        const chord = Math.sqrt(2 - 2 * cosPsi);
-        const reach = theta * (chord > lobeWidth ? chord : lobeWidth);
-        if (straddles || (bound > negligible * yMean && rho * rho * (y > yMean ? y : yMean) > reach * reach * yMean)) {
-          const k1 = k - 1;
-          const x2 = 2 * tx;
-          const y2 = 2 * ty;
-          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2;
-          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2;
-          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2 + 1;
-          stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2 + 1;
-          continue;
+        const yBig = y > yMean ? y : yMean;
+        const bound = omega * wMax * yBig;
+        if (bound > negligibleY) {
+          const rho = geo[gi + 6]!;
+          const chord = Math.sqrt(2 - 2 * cosPsi);
+          const reach = theta * (chord > lobeWidth ? chord : lobeWidth);
+          const share = bound * shareScale;
+          const relax = share < yMean && shareScale > 0 ? Math.sqrt(share / yMean) : 1;
+          if (cosPsi * cosR - sinPsi * sinR < 0 || rho * rho * yBig * relax > reach * reach * yMean) {
+            const k1 = k - 1;
+            const x2 = 2 * tx;
+            const y2 = 2 * ty;
+            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2;
+            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2;
+            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2 + 1;
+            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2 + 1;
+            continue;
+          }
         }
       }
-      const omega = geo[gi + 3]!;
-      const wG = lobeMean(cG, mLen, cosPsi, a2);
+      const mLen = geo[gi + 7]!;
+      const wG = lobeMean(cosPsi * mLen, mLen, cosPsi, a2);
       den += omega * (wG < wMax ? wG : wMax);
       accepted++;
       if (y > 0) {
-        const co = (table[tk + 2]! + t) * 3;
-        const yc = mc + cent[co]!;
-        const yu = mu + cent[co + 1]!;
-        const yv = mv + cent[co + 2]!;
-        const lx = B[b]! * yc + B[b + 3]! * yu + B[b + 6]! * yv;
-        const ly = B[b + 1]! * yc + B[b + 4]! * yu + B[b + 7]! * yv;
-        const lz = B[b + 2]! * yc + B[b + 5]! * yu + B[b + 8]! * yv;
-        let yLen = Math.sqrt(lx * lx + ly * ly + lz * lz);
-        if (yLen > 1) yLen = 1;
-        const cY = nx * lx + ny * ly + nz * lz;
-        let wY = lobeMean(cY, yLen, yLen > 0 ? cY / yLen : 0, a2);
+        const ox = nodes[no + 7]!;
+        const oy = nodes[no + 8]!;
+        const oz = nodes[no + 9]!;
+        let wY: number;
+        if (ox === 0 && oy === 0 && oz === 0) {
+          wY = wG;
+        } else {
+          const lx = nodes[no]! * mLen + ox;
+          const ly = nodes[no + 1]! * mLen + oy;
+          const lz = nodes[no + 2]! * mLen + oz;
+          let yLen = Math.sqrt(lx * lx + ly * ly + lz * lz);
+          if (yLen > 1) yLen = 1;
+          const cY = nx * lx + ny * ly + nz * lz;
+          wY = lobeMean(cY, yLen, yLen > 0 ? cY / yLen : 0, a2);
+        }
         if (wY > wMax) wY = wMax;
         wY *= omega;
-        sr += wY * r;
-        sg += wY * g;
-        sb += wY * bl;
+        if (y > brightY) {
+          br += wY * nodes[no + 3]!;
+          bg += wY * nodes[no + 4]!;
+          bb += wY * nodes[no + 5]!;
+        } else {
+          sr += wY * nodes[no + 3]!;
+          sg += wY * nodes[no + 4]!;
+          sb += wY * nodes[no + 5]!;
+        }
       }
     }
     const o = params.dstOffset + local * 3;
     const inv = den > 0 ? 1 / den : 0;
-    dst[o] = sr * inv;
-    dst[o + 1] = sg * inv;
-    dst[o + 2] = sb * inv;
+    dst[o] = sr * inv + br * invExact;
+    dst[o + 1] = sg * inv + bg * invExact;
+    dst[o + 2] = sb * inv + bb * invExact;
     visits[item] = accepted;
   }
 }

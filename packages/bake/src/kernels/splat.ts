@@ -10,8 +10,8 @@
  * the texel is stored as an offset from the texel's geometric mean direction (face frame, float32), so a
  * sun is weighted by the prefilter where it really is, not at the texel centre.
  *
- * Items are level-0 texels; a tile must cover whole faces (the stage sets rowLength to a face), since
- * every tile scans the part of the source that can land on its faces.
+ * Items are level-0 texels; a tile must cover a whole face or the top or bottom half of one (the stage
+ * sets rowLength to half a face), since every tile scans the part of the source that can land on it.
  */
 
 import { CUBE_FACE_BASIS } from '@lightkiln/math';
@@ -68,16 +68,32 @@ function splatFace(src: Float32Array, dst: Float64Array, cent: Float32Array, geo
   const minimum = new Float64Array(count * 3).fill(Infinity);
 
   // Source rows and columns that can land on this face (a one-pixel margin for the bilinear support).
+  // A tile of the top half of a face (rows above the middle, t < 0) or of the bottom half scans half of
+  // the face's region: upper (y > 0) or lower hemisphere for a side face, the half with z < 0 or z > 0
+  // (a half circle of azimuths) for a cap.
+  const faceBegin = face * n * n;
+  const topOnly = end - faceBegin <= (n * n) / 2;
+  const bottomOnly = begin - faceBegin >= (n * n) / 2;
   let theta0 = 0;
   let theta1 = Math.PI;
   let col0 = 0;
   let col1 = W - 1;
-  if (face === 2) theta1 = CAP_THETA;
-  else if (face === 3) theta0 = Math.PI - CAP_THETA;
-  else {
+  if (face === 2 || face === 3) {
+    if (face === 2) theta1 = CAP_THETA;
+    else theta0 = Math.PI - CAP_THETA;
+    if (topOnly || bottomOnly) {
+      // t = z on +Y and -z on -Y; z of the turned direction is sin(theta) cos(phi - angle) with phi the
+      // source azimuth below, so z > 0 on azimuths angle +- pi / 2.
+      const wantPositiveZ = (face === 2) === bottomOnly;
+      const angle = Math.atan2(sn, c);
+      const centre = ((angle + (wantPositiveZ ? 0 : Math.PI)) / (2 * Math.PI)) * W - 0.5;
+      col0 = Math.floor(centre - W / 4) - 2;
+      col1 = Math.ceil(centre + W / 4) + 2;
+    }
+  } else {
     // A side face reaches up to its top edge midpoints, (0, 1, 1) / sqrt(2) for +Z: theta = pi / 4.
-    theta0 = Math.PI / 4;
-    theta1 = Math.PI - theta0;
+    theta0 = topOnly ? Math.PI / 4 : bottomOnly ? Math.PI / 2 : Math.PI / 4;
+    theta1 = topOnly ? Math.PI / 2 : 3 * Math.PI / 4;
     // Face axis in the cube frame, back to the source frame (R(-angle)), then its equirect azimuth.
     const ax = B[b]!;
     const az = B[b + 2]!;
@@ -94,10 +110,21 @@ function splatFace(src: Float32Array, dst: Float64Array, cent: Float32Array, geo
   const subCols = cols * s;
   const sinPhi = new Float64Array(subCols);
   const cosPhi = new Float64Array(subCols);
+  // Per sub-column: azimuth, and the bilinear columns and weight (wrapping in longitude).
+  const colA = new Int32Array(subCols);
+  const colB = new Int32Array(subCols);
+  const colW = new Float64Array(subCols);
   for (let k = 0; k < subCols; k++) {
     const phi = (2 * Math.PI * (col0 + (k + 0.5) / s)) / W;
     sinPhi[k] = Math.sin(phi);
     cosPhi[k] = Math.cos(phi);
+    const fu = col0 + (k + 0.5) / s - 0.5;
+    const xf = Math.floor(fu);
+    let xa = xf % W;
+    if (xa < 0) xa += W;
+    colA[k] = xa * 3;
+    colB[k] = (xa + 1 >= W ? 0 : xa + 1) * 3;
+    colW[k] = fu - xf;
   }
   const dPhi = (2 * Math.PI) / (W * s);
   const half = n / 2;
@@ -115,6 +142,8 @@ function splatFace(src: Float32Array, dst: Float64Array, cent: Float32Array, geo
       const y0 = fv | 0;
       const y1 = y0 + 1 < H ? y0 + 1 : y0;
       const ay = fv - y0;
+      const row0Base = y0 * W * 3;
+      const row1Base = y1 * W * 3;
       for (let k = 0; k < subCols; k++) {
         // Source direction (x = -sin theta sin phi, y = cos theta, z = sin theta cos phi), then R(angle).
         const sx = -sinT * sinPhi[k]!;
@@ -147,16 +176,11 @@ function splatFace(src: Float32Array, dst: Float64Array, cent: Float32Array, geo
         const local = face * n * n + ty * n + tx - begin;
         if (local < 0 || local >= count) continue;
         // Bilinear source value at the sub-cell centre (wraps in longitude).
-        const fu = col0 + (k + 0.5) / s - 0.5;
-        const xf = Math.floor(fu);
-        const axw = fu - xf;
-        let xa = xf % W;
-        if (xa < 0) xa += W;
-        const xb = xa + 1 >= W ? 0 : xa + 1;
-        const i00 = (y0 * W + xa) * 3;
-        const i10 = (y0 * W + xb) * 3;
-        const i01 = (y1 * W + xa) * 3;
-        const i11 = (y1 * W + xb) * 3;
+        const axw = colW[k]!;
+        const i00 = row0Base + colA[k]!;
+        const i10 = row0Base + colB[k]!;
+        const i01 = row1Base + colA[k]!;
+        const i11 = row1Base + colB[k]!;
         const w00 = (1 - axw) * (1 - ay);
         const w10 = axw * (1 - ay);
         const w01 = (1 - axw) * ay;

@@ -24,6 +24,11 @@ export function kernel(name: string): KernelRef {
   return { moduleUrl: KERNEL_MODULE, name };
 }
 
+/** Starts the pool's workers and their kernel import now, beside serial work such as decoding. */
+export function warmPool(ctx: StageContext): void {
+  ctx.pool.warm(KERNEL_MODULE);
+}
+
 /** Pool job options shared by the stages. */
 export function jobOptions(ctx: StageContext, stage: string): { signal?: AbortSignal; onProgress?: (p: { done: number; total: number }) => void; targetTileCost?: number } {
   const onProgress = ctx.onProgress;

@@ -76,13 +76,19 @@ export async function buildPyramid(source: SourceImage, size: number, rotationDe
       size, srcWidth: source.width, srcHeight: source.height, subcells: splatSubcells(source.width, source.height, size),
       rotCos: Math.cos(angle), rotSin: Math.sin(angle),
     };
-    // One tile a face: each scans the part of the source that can land on it (a cap reads about twice
-    // the pixels of a side face).
-    const perFacePixels = source.width * source.height * params.subcells * params.subcells;
+    // One tile a half face: each scans the part of the source that can land on it (a cap half reads a
+    // sixth of the sub-cells, a side half a sixteenth).
+    const subcellCount = source.width * source.height * params.subcells * params.subcells;
+    const halfItems = faceItems / 2;
+    const segments = [];
+    for (let h = 0; h < 12; h++) {
+      const f = h >> 1;
+      segments.push({ begin: h * halfItems, end: (h + 1) * halfItems, costPerItem: ((f === 2 || f === 3 ? 0.16 : 0.07) * subcellCount) / halfItems, rowLength: halfItems, label: `resample face ${f}` });
+    }
     await ctx.pool.run({
       kernel: kernel('splatEquirect'),
       buffers: { src: toShared(source.data), pyramid: data, centroids, geometry: geometry.data },
-      segments: [0, 1, 2, 3, 4, 5].map((f) => ({ begin: f * faceItems, end: (f + 1) * faceItems, costPerItem: ((f === 2 || f === 3 ? 0.3 : 0.15) * perFacePixels) / faceItems, rowLength: faceItems, label: `resample face ${f}` })),
+      segments,
       params,
       ...jobOptions(ctx, 'resample'),
     });

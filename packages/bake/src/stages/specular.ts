@@ -9,7 +9,8 @@ import {
 } from '@lightkiln/math';
 import { sharedFloat32, sharedFloat64, sharedInt32, type Segment } from '@lightkiln/pool';
 import { LEVEL_TABLE_STRIDE, type QuadratureParams } from '../kernels/quadrature.js';
-import { nodeGeometry } from './node-geometry.js';
+import { nodeGeometry, type NodeGeometry } from './node-geometry.js';
+import { NODE_TABLE_STRIDE, type NodeTableParams } from '../kernels/node-table.js';
 import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
 import { levelView, type Pyramid } from './pyramid.js';
@@ -121,7 +122,18 @@ export interface SpecularOptions {
 export const QUADRATURE_THETA = 0.5;
 export const QUADRATURE_GAMMA = 2;
 /** Nodes whose largest possible share of a texel's lobe integral is below this are not opened. */
-export const QUADRATURE_NEGLIGIBLE = 2e-5;
+export const QUADRATURE_NEGLIGIBLE = 1e-3;
+/**
+ * A node whose largest possible share of the lobe integral is s < QUADRATURE_SHARE may be wider: its
+ * opening test is scaled by sqrt(s / QUADRATURE_SHARE) (small shares tolerate a coarser weight).
+ */
+export const QUADRATURE_SHARE = 0.1;
+/**
+ * Nodes brighter than QUADRATURE_BRIGHT times the local mean luminance (a sun, a lamp) are normalised by
+ * the exact lobe integral instead of the quadrature's own sum of weights: their light is resolved down
+ * to the finest level, so the weight-sum error of the coarse nodes must not scale it.
+ */
+export const QUADRATURE_BRIGHT = 4;
 
 /**
  * Integral over the sphere of w(c) = max(c, 0) / (1 + a^2 + c (a^2 - 1))^2 (the kernel's lobe, up to
@@ -144,6 +156,20 @@ export function lobeIntegral(alphaSquared: number): number {
     width *= 2;
   }
   return 2 * Math.PI * sum;
+}
+
+/** The node table of the quadrature (kernels/node-table.ts) for every level of the pyramid, one pool job. */
+async function buildNodes(pyramid: Pyramid, geometry: NodeGeometry, ctx: StageContext): Promise<Float32Array> {
+  const total = pyramid.data.length / 3;
+  const nodes = sharedFloat32(total * NODE_TABLE_STRIDE);
+  const segments: Segment[] = [];
+  const segmentParams: NodeTableParams[] = [];
+  pyramid.sizes.forEach((n, k) => {
+    segments.push({ begin: 0, end: 6 * n * n, costPerItem: 40, rowLength: n, label: `node table level ${k}` });
+    segmentParams.push({ size: n, firstTexel: pyramid.offsets[k]! / 3, geometryOffset: geometry.offsets[k]! });
+  });
+  await ctx.pool.run({ kernel: kernel('buildNodeTable'), buffers: { pyramid: pyramid.data, centroids: pyramid.centroids, geometry: geometry.data, nodes }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  return nodes;
 }
 
 /** The default: every requested level by the hierarchical quadrature (kernels/quadrature.ts), one pool job. */
@@ -169,6 +195,8 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
       size: req.size, levelBegin: texels, dstOffset: texels * 3, alphaSquared: alpha * alpha,
       theta: exhaustive ? 0 : QUADRATURE_THETA, lobeWidth: QUADRATURE_GAMMA * alpha, meanLuminance, levels,
       negligible: exhaustive ? 0 : QUADRATURE_NEGLIGIBLE * lobeIntegral(alpha * alpha),
+      lobeIntegral: lobeIntegral(alpha * alpha), brightRatio: QUADRATURE_BRIGHT,
+      shareScale: exhaustive ? 0 : 1 / (QUADRATURE_SHARE * lobeIntegral(alpha * alpha)),
     };
     for (let f = 0; f < 6; f++) {
       segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: exhaustive ? 4 * pyramid.sizes[0]! ** 2 : 200, rowLength: req.size, label: `level ${req.level} face ${f}` });
@@ -176,9 +204,10 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
     }
     texels += 6 * req.size * req.size;
   }
+  const nodes = await buildNodes(pyramid, geometry, ctx);
   const dst = sharedFloat32(texels * 3);
   const visits = sharedFloat32(texels);
-  const buffers = { pyramid: pyramid.data, centroids: pyramid.centroids, geometry: geometry.data, levelTable, dst, visits };
+  const buffers = { nodes, geometry: geometry.data, levelTable, dst, visits };
   await ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers, segments, segmentParams, ...jobOptions(ctx, 'specular') });
   if (exhaustive) {
     return requests.map((req, r) => {
@@ -186,14 +215,15 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
       return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + 6 * req.size * req.size * 3), usedSamples: 6 * pyramid.sizes[0]! ** 2, relativeErrorEstimate: 0 };
     });
   }
-  // The error estimate: every sixteenth row of every face again with half the opening angle (about four
-  // times the nodes); twice the RMS difference, over the level's mean luminance.
+  // The error estimate: every 32nd row of every face (at least two rows a face) again with half the
+  // opening angle (about four times the nodes, so about an eighth of the level's cost); twice the RMS
+  // difference, over the level's mean luminance.
   const fine = sharedFloat32(texels * 3);
   const checkSegments: Segment[] = [];
   const checkParams: QuadratureParams[] = [];
   for (let r = 0; r < requests.length; r++) {
     const p = segmentParams[r * 6]!;
-    const step = Math.max(1, p.size >> 4);
+    const step = Math.max(1, Math.min(p.size >> 1, 32));
     for (let f = 0; f < 6; f++) {
       for (let y = step >> 1; y < p.size; y += step) {
         const first = p.levelBegin + (f * p.size + y) * p.size;
