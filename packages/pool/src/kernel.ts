@@ -11,6 +11,8 @@ export type RangeKernel<P = unknown> = (buffers: SharedBuffers, begin: number, e
 /** What a kernel module exports. */
 export interface KernelModule {
   readonly kernels: Readonly<Record<string, RangeKernel<never>>>;
+  /** Optional: run by WorkerPool.warm in each worker (e.g. the kernels once on tiny inputs, for the JIT). */
+  readonly warmUp?: () => Promise<void> | void;
 }
 
 /** Names a kernel by the URL of its built module and its key in that module's `kernels`. */

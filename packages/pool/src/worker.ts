@@ -1,6 +1,6 @@
 /** The piscina worker entry: runs one tile of a named kernel on shared buffers. */
 
-import { loadKernel, type KernelRef } from './kernel.js';
+import { loadKernel, type KernelModule, type KernelRef } from './kernel.js';
 import type { SharedBuffers } from './shared.js';
 
 export interface TileTask {
@@ -12,9 +12,10 @@ export interface TileTask {
 }
 
 export default async function runTile(task: TileTask): Promise<number> {
-  // A warm-up task (WorkerPool.warm): load the module only.
+  // A warm-up task (WorkerPool.warm): load the module and run its optional warmUp().
   if (task.kernel.name === '') {
-    await import(task.kernel.moduleUrl);
+    const mod = (await import(task.kernel.moduleUrl)) as KernelModule;
+    if (typeof mod.warmUp === 'function') await mod.warmUp();
     return 0;
   }
   const kernel = await loadKernel(task.kernel);

@@ -8,6 +8,7 @@ import { resampleCube, resampleEquirect } from './resample.js';
 import { buildNodeTable } from './node-table.js';
 import { prefilterQuadrature } from './quadrature.js';
 import { splatEquirect } from './splat.js';
+export { warmUp } from './warm-up.js';
 import { prefilterSpecular } from './specular.js';
 
 export const kernels: KernelModule['kernels'] = {

@@ -97,8 +97,8 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
   const visits = buffers.visits as Float32Array;
   const size = params.size;
   const a2 = params.alphaSquared;
-  const theta = params.theta;
-  const lobeWidth = params.lobeWidth;
+  const theta2 = params.theta * params.theta;
+  const lobeWidth2 = params.lobeWidth * params.lobeWidth;
   const yGlobal = params.meanLuminance;
   const top = params.levels - 1;
   // The level of 4 x 4 faces (or the finest, for smaller pyramids): its texel around n sets the local
@@ -170,11 +170,11 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
         const bound = omega * wMax * yBig;
         if (bound > negligibleY) {
           const rho = geo[gi + 6]!;
-          const chord = Math.sqrt(2 - 2 * cosPsi);
-          const reach = theta * (chord > lobeWidth ? chord : lobeWidth);
+          const chord2 = 2 - 2 * cosPsi;
+          const reach2 = theta2 * (chord2 > lobeWidth2 ? chord2 : lobeWidth2);
           const share = bound * shareScale;
           const relax = share < yMean && shareScale > 0 ? Math.sqrt(share / yMean) : 1;
-          if (cosPsi * cosR - sinPsi * sinR < 0 || rho * rho * yBig * relax > reach * reach * yMean) {
+          if (cosPsi * cosR - sinPsi * sinR < 0 || rho * rho * yBig * relax > reach2 * yMean) {
             const k1 = k - 1;
             const x2 = 2 * tx;
             const y2 = 2 * ty;
