@@ -5,7 +5,7 @@
  */
 
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -84,9 +84,10 @@ describe('lightkiln bake', () => {
   it('bakes a batch, reports the failing probe and goes on (exit 1)', () => {
     const batch = join(work, 'batch.json');
     writeFileSync(join(work, 'also.pfm'), encodePfm({ width: 32, height: 16, channels: 3, data: sky(32, 16) }));
+    writeFileSync(join(work, 'broken.hdr'), '#?RADIANCE\nFORMAT=32-bit_rle_rgbe\n\n-Y 16 +X 32\n\u0002\u0002');
     writeFileSync(batch, JSON.stringify([
       { input: { path: 'sky.hdr' }, name: 'first' },
-      { input: { path: 'missing.hdr' }, name: 'second' },
+      { input: { path: 'broken.hdr' }, name: 'second' },
       { input: { path: 'also.pfm' }, name: 'third', rotationDeg: 45 },
     ]));
     const out = join(work, 'out-batch');
@@ -94,9 +95,108 @@ describe('lightkiln bake', () => {
     expect(r.status).toBe(1);
     const doc = JSON.parse(r.stdout);
     expect(doc.probes.map((p: { ok: boolean }) => p.ok)).toEqual([true, false, true]);
-    expect(doc.probes[1].error.message).toContain('missing.hdr');
+    expect(doc.probes[1].error.message).toContain('broken.hdr');
     expect(existsSync(join(out, 'first.probe.json'))).toBe(true);
     expect(JSON.parse(readFileSync(join(out, 'third.probe.json'), 'utf8')).recipe.rotationDeg).toBe(45);
+  });
+
+  it('checks every batch entry before any work: a missing input, a duplicate name or an unsafe name stop it (exit 2, nothing written)', () => {
+    const cases: [string, unknown[], string][] = [
+      ['missing', [{ input: { path: 'sky.hdr' }, name: 'one' }, { input: { path: 'missing.hdr' }, name: 'two' }], 'missing.hdr'],
+      ['duplicate', [{ input: { path: 'sky.hdr' } }, { input: { path: 'sky.hdr' } }], 'also used by entry 0'],
+      ['escape', [{ input: { path: 'sky.hdr' }, name: 'ok' }, { input: { path: 'sky.hdr' }, name: '../escape' }], 'plain file name'],
+    ];
+    for (const [label, entries, message] of cases) {
+      const batch = join(work, `pre-${label}.json`);
+      writeFileSync(batch, JSON.stringify(entries));
+      const out = join(work, `out-pre-${label}`);
+      const r = run(['bake', '--batch', batch, '--out', out, ...small, '--json']);
+      expect(r.status, label).toBe(2);
+      expect(JSON.parse(r.stdout).error.message, label).toContain(message);
+      expect(existsSync(out), label).toBe(false);
+    }
+  });
+
+  it('refuses a symbolic link at an artifact path before baking (exit 2) and leaves its target alone', () => {
+    const out = join(work, 'out-link');
+    mkdirSync(out, { recursive: true });
+    const victim = join(work, 'victim.txt');
+    writeFileSync(victim, 'keep');
+    symlinkSync(victim, join(out, 'sky.probe.json'));
+    const r = run(['bake', skyPath, '--out', out, ...small]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain('symbolic link');
+    expect(readFileSync(victim, 'utf8')).toBe('keep');
+    expect(readdirSync(out)).toEqual(['sky.probe.json']);
+  });
+
+  it('sweep refuses a symbolic link planted at its report path before running', () => {
+    const out = join(work, 'out-sweep-link');
+    mkdirSync(out, { recursive: true });
+    const victim = join(work, 'victim-sweep.txt');
+    writeFileSync(victim, 'keep');
+    symlinkSync(victim, join(out, 'sky.sweep.csv'));
+    const r = run(['sweep', skyPath, '--out', out, '--size', '8', '--budgets', '16', '--methods', 'plain', '--repeats', '1', '--quiet']);
+    expect(r.status).toBe(2);
+    expect(readFileSync(victim, 'utf8')).toBe('keep');
+  });
+
+  it('prints a JSON error document on stdout for a usage error with --json', () => {
+    const r = run(['bake', skyPath, '--bogus', '--json']);
+    expect(r.status).toBe(2);
+    expect(JSON.parse(r.stdout).error.code).toBe('USAGE');
+  });
+
+  it('cache clear refuses a folder that is not a cache and deletes only what the cache owns', () => {
+    const folder = join(work, 'not-a-cache');
+    mkdirSync(folder, { recursive: true });
+    writeFileSync(join(folder, 'precious.txt'), 'keep');
+    for (const action of ['clear', 'prune', 'verify']) {
+      const r = run(['cache', action, '--cache-dir', folder, ...(action === 'prune' ? ['--max-bytes', '0'] : [])]);
+      expect(r.status, action).toBe(2);
+      expect(r.stderr, action).toContain('not a lightkiln cache');
+    }
+    expect(readFileSync(join(folder, 'precious.txt'), 'utf8')).toBe('keep');
+    // A real cache with a stranger's file in it: clear removes the entries and keeps the folder and the file.
+    const cacheDir = join(work, 'cache-with-stranger');
+    expect(run(['bake', skyPath, '--out', join(work, 'out-stranger'), '--size', '8', '--samples', 'draft', '--cache-dir', cacheDir]).status).toBe(0);
+    writeFileSync(join(cacheDir, 'notes.txt'), 'mine');
+    const cleared = run(['cache', 'clear', '--cache-dir', cacheDir, '--json']);
+    expect(cleared.status).toBe(0);
+    expect(JSON.parse(cleared.stdout).removed).toBeGreaterThan(3);
+    expect(readdirSync(cacheDir)).toEqual(['notes.txt']);
+  });
+
+  it('cache verify names the corrupt entries, and an entry copied over another fails (the checksum binds the key)', () => {
+    const cacheDir = join(work, 'cache-verify');
+    expect(run(['bake', skyPath, '--out', join(work, 'out-verify'), '--size', '8', '--samples', 'draft', '--cache-dir', cacheDir]).status).toBe(0);
+    const files = readdirSync(cacheDir).filter((d) => /^[0-9a-f]{2}$/.test(d)).flatMap((d) => readdirSync(join(cacheDir, d)).map((f) => join(cacheDir, d, f)));
+    const [a, b] = files;
+    writeFileSync(b!, readFileSync(a!));
+    const r = run(['cache', 'verify', '--cache-dir', cacheDir, '--json']);
+    expect(r.status).toBe(1);
+    const doc = JSON.parse(r.stdout);
+    expect(doc.corrupt).toBe(1);
+    expect(doc.corruptEntries).toEqual([b!.split('/').pop()!.replace('.entry', '')]);
+  });
+
+  it('sweeps stale temp files of dead processes and counts them in cache stats', () => {
+    const cacheDir = join(work, 'cache-temps');
+    expect(run(['bake', skyPath, '--out', join(work, 'out-temps'), '--size', '8', '--samples', 'draft', '--cache-dir', cacheDir]).status).toBe(0);
+    const shard = readdirSync(cacheDir).find((d) => /^[0-9a-f]{2}$/.test(d))!;
+    // pid 2^22 + 1 is above Linux's pid_max ceiling, so no process has it.
+    const stale = join(cacheDir, shard, `.${'0'.repeat(64)}.entry.tmp-4194305-abcdef`);
+    writeFileSync(stale, new Uint8Array(1000));
+    const staleOut = join(work, 'out-temps', '.sky.probe.json.tmp-4194305-abcdef');
+    writeFileSync(staleOut, 'x');
+    const stats = JSON.parse(run(['cache', 'stats', '--cache-dir', cacheDir, '--json']).stdout);
+    expect(stats.staleTempFiles).toBe(1);
+    expect(stats.staleTempBytes).toBe(1000);
+    expect(run(['cache', 'verify', '--cache-dir', cacheDir]).status).toBe(0);
+    expect(existsSync(stale)).toBe(false);
+    // The next bake into the output folder sweeps that folder's stale temp files.
+    expect(run(['bake', skyPath, '--out', join(work, 'out-temps'), '--size', '8', '--samples', 'draft', '--no-cache']).status).toBe(0);
+    expect(existsSync(staleOut)).toBe(false);
   });
 
   it('uses the cache: the second run reads every file from it', () => {
@@ -115,17 +215,17 @@ describe('lightkiln bake', () => {
     expect(run(['cache', 'prune', '--cache-dir', cacheDir]).status).toBe(2);
   });
 
-  it('aborts cleanly on SIGINT: exit 1, no artifact and no temp file', async () => {
-    const out = join(work, 'out-sigint');
+  for (const signal of ['SIGINT', 'SIGTERM'] as const) it(`aborts cleanly on ${signal}: exit 1, no artifact and no temp file`, async () => {
+    const out = join(work, `out-${signal}`);
     const child = spawn(process.execPath, [cli, 'bake', skyPath, '--out', out, '--size', '256', '--samples', 'high', '--no-cache'], { cwd: work, env: { ...process.env, NO_COLOR: '1' } });
     let stderr = '';
     const code = await new Promise<number>((resolve) => {
       child.stderr.on('data', (chunk: Buffer) => {
         stderr += chunk.toString();
-        if (stderr.includes('specular') && !child.killed) child.kill('SIGINT');
+        if (stderr.includes('specular') && !child.killed) child.kill(signal);
       });
       // The specular stage of this bake takes several seconds; a plain progress line appears within 2 s.
-      setTimeout(() => { if (!child.killed) child.kill('SIGINT'); }, 4000);
+      setTimeout(() => { if (!child.killed) child.kill(signal); }, 4000);
       child.on('exit', (c) => resolve(c ?? -1));
     });
     expect(code).toBe(1);

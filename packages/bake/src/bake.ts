@@ -5,8 +5,7 @@
  * only the finished artifacts and a changed option recomputes only what depends on it.
  */
 
-import { randomBytes } from 'node:crypto';
-import { lstatSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { lstatSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { decodeKtx2, encodeExr, encodeHdr } from '@lightkiln/codecs';
 import { renderContactSheet } from './preview/sheet.js';
@@ -17,11 +16,12 @@ import { aborted, invalidOption, LightkilnError, toLightkilnError, unsafePath } 
 import { sha256Hex, stageKey } from './hash.js';
 import { CONVENTIONS, MANIFEST_SCHEMA_VERSION, shTriples, TOOL_NAME, TOOL_VERSION, type Manifest, type ManifestArtifact, type ManifestLevel } from './manifest.js';
 import { resolveRecipe, SAFE_NAME, type Recipe, type ResolvedRecipe } from './recipe.js';
-import { warmPool, type BakeProgress, type StageContext } from './stages/context.js';
+import { guardedContext, warmPool, type BakeProgress, type StageContext } from './stages/context.js';
 import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
 import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
 import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
 import { buildPyramid, pyramidLayout, type Pyramid } from './stages/pyramid.js';
+import { commitFiles, discardFiles, refuseSymlink, sameContent, stageFile, sweepStaleTempFiles, writeError, type StagedFile } from './files.js';
 import { decodeSource, type InputFile, type SanitizeCounts, type SourceImage } from './stages/source.js';
 import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specular.js';
 
@@ -321,6 +321,8 @@ export class Baker {
       this.#ownsPool = false;
     }
     const cache = options.cache ?? '.lightkiln-cache';
+    if (cache !== false && typeof cache !== 'string' && !isStore(cache)) throw invalidOption('cache', 'must be a folder path, a CacheStore or false', cache);
+    if (cache === '') throw invalidOption('cache', 'must be a non-empty folder path', cache);
     this.#store = cache === false ? null : typeof cache === 'string' ? new FolderStore(cache) : cache;
   }
 
@@ -407,13 +409,18 @@ export class Baker {
   /** Bakes every artifact of a recipe; with outDir, writes them atomically (nothing is written on failure). */
   async bake(raw: Recipe, options: BakeRunOptions = {}): Promise<BakeResult> {
     const started = performance.now();
+    let progressFailure = (): unknown => undefined;
     try {
+      if (typeof options !== 'object' || options === null) throw invalidOption('bake options', 'must be an object', options);
       if (options.signal?.aborted) throw aborted(options.signal.reason);
       const { recipe, inputs, inputHashes, keys } = this.#prepare(raw);
       const outDir = options.outDir;
+      if (outDir !== undefined && (typeof outDir !== 'string' || outDir === '')) throw invalidOption('outDir', 'must be a non-empty folder path', outDir);
       if (outDir !== undefined) checkOutputFolder(outDir, recipe.name);
       const cache = new EntryCache(this.#store);
-      const ctx: StageContext = { pool: this.#pool, signal: options.signal, onProgress: options.onProgress, targetTileCost: this.#options.targetTileCost };
+      const guarded = guardedContext(this.#pool, options, this.#options.targetTileCost);
+      progressFailure = guarded.failure;
+      const ctx = guarded.ctx;
       const run = new BakeRun(recipe, inputs, keys, cache, ctx);
       const r = recipe;
       const roughnessList = JSON.stringify(r.roughness);
@@ -502,7 +509,7 @@ export class Baker {
       if (this.#store !== null && this.#options.cacheMaxBytes !== undefined) await pruneStore(this.#store, this.#options.cacheMaxBytes);
       return { artifacts, manifest, cache: { ...cache.stats } };
     } catch (error) {
-      throw toLightkilnError(error);
+      throw toLightkilnError(progressFailure() ?? error);
     }
   }
 
@@ -511,12 +518,15 @@ export class Baker {
    * same cache as the probes.
    */
   async lut(options: LutOptions = {}, run: { readonly signal?: AbortSignal; readonly onProgress?: (p: BakeProgress) => void } = {}): Promise<BakedArtifact> {
+    let progressFailure = (): unknown => undefined;
     try {
       if (this.#closed) throw new LightkilnError('INVALID_OPTION', 'the baker is closed');
       const resolved = resolveRecipe({ input: { bytes: new Uint8Array(1), name: 'lut' }, dfg: { enabled: true, ...(options.size !== undefined ? { size: options.size } : {}), ...(options.samples !== undefined ? { samples: options.samples } : {}), ...(options.multiscatter !== undefined ? { multiscatter: options.multiscatter } : {}), ...(options.cloth !== undefined ? { cloth: options.cloth } : {}) }, output: { supercompression: options.supercompression ?? 'none' } });
       const keys = computeKeys(resolved, '0'.repeat(64));
       const cache = new EntryCache(this.#store);
-      const ctx: StageContext = { pool: this.#pool, signal: run.signal, onProgress: run.onProgress, targetTileCost: this.#options.targetTileCost };
+      const guarded = guardedContext(this.#pool, run, this.#options.targetTileCost);
+      progressFailure = guarded.failure;
+      const ctx = guarded.ctx;
       const bakeRun = new BakeRun(resolved, [], keys, cache, ctx);
       const file = await bakeRun.file<{ channels: string[] }>(keys.lutFile, async () => {
         const table = await bakeRun.dfg();
@@ -524,7 +534,7 @@ export class Baker {
       });
       return { kind: 'lut', name: 'dfg.ktx2', path: null, format: file.meta.channels.length === 2 ? 'ktx2/rg16f' : 'ktx2/rgba16f', bytes: file.bytes, sha256: sha256Hex(file.bytes), fromCache: file.fromCache };
     } catch (error) {
-      throw toLightkilnError(error);
+      throw toLightkilnError(progressFailure() ?? error);
     }
   }
 
@@ -555,28 +565,38 @@ function checkOutputFolder(outDir: string, probe: string): void {
   if (!SAFE_NAME.test(probe)) throw unsafePath(probe, 'not a plain file name');
 }
 
-/** Writes every artifact to a temp file first, then renames all of them; on failure removes the temps. */
+/**
+ * Writes every artifact to a temp file first, then renames all of them; on failure removes the temps.
+ * An artifact whose file already holds the same bytes is left alone (its mtime kept, for build systems).
+ * Stale temp files of killed runs in the folder are swept first.
+ */
 function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): void {
-  mkdirSync(outDir, { recursive: true });
-  const temps: { tmp: string; final: string }[] = [];
+  try {
+    mkdirSync(outDir, { recursive: true });
+  } catch (error) {
+    throw writeError(outDir, error);
+  }
+  sweepStaleTempFiles(outDir);
+  const staged: StagedFile[] = [];
   try {
     for (const a of artifacts) {
       if (!SAFE_NAME.test(a.name)) throw unsafePath(a.name, 'not a plain file name');
       const final = join(outDir, a.name);
-      try {
-        if (lstatSync(final).isSymbolicLink()) throw unsafePath(a.name, 'an existing symbolic link would be replaced');
-      } catch (error) {
-        if (error instanceof LightkilnError) throw error;
-      }
-      const tmp = join(outDir, `.${a.name}.tmp-${process.pid}-${randomBytes(4).toString('hex')}`);
-      writeFileSync(tmp, a.bytes);
-      temps.push({ tmp, final });
+      refuseSymlink(final);
+      if (sameContent(final, a.bytes)) continue;
+      staged.push(stageFile(final, a.bytes));
     }
-    for (const { tmp, final } of temps) renameSync(tmp, final);
   } catch (error) {
-    for (const { tmp } of temps) rmSync(tmp, { force: true });
-    throw toLightkilnError(error, outDir);
+    discardFiles(staged);
+    throw error;
   }
+  commitFiles(staged);
+}
+
+function isStore(value: unknown): value is CacheStore {
+  if (typeof value !== 'object' || value === null) return false;
+  const v = value as Record<string, unknown>;
+  return ['has', 'get', 'put', 'delete', 'entries'].every((m) => typeof v[m] === 'function');
 }
 
 /** A baker bound to the shared pool and a cache. */

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { read as readKtx2 } from 'ktx-parse';
-import { decodeKtx2, encodeHdr } from '@lightkiln/codecs';
+import { decodeKtx2, encodeHdr, encodePfm } from '@lightkiln/codecs';
 import { closeSharedPools, createBaker, decodeEntry, FolderStore, LightkilnError, MemoryStore, type Recipe } from '@lightkiln/bake';
 import { equirectOf } from './helpers.js';
 
@@ -97,7 +97,7 @@ describe('content-hash cache', () => {
     const again = await baker.bake(recipe());
     expect(again.cache.corrupt).toBeGreaterThan(0);
     expect(hashes(again)).toEqual(hashes(first));
-    for (const e of await store.entries()) expect(decodeEntry((await store.get(e.key))!)).not.toBeNull();
+    for (const e of await store.entries()) expect(decodeEntry((await store.get(e.key))!, e.key)).not.toBeNull();
   });
 
   it('lets two bakes of the same recipe run at once on one folder, leaving valid entries', async () => {
@@ -107,7 +107,7 @@ describe('content-hash cache', () => {
     const [ra, rb] = await Promise.all([a.bake(recipe()), b.bake(recipe())]);
     expect(hashes(ra)).toEqual(hashes(rb));
     const store = new FolderStore(dir);
-    for (const e of await store.entries()) expect(decodeEntry((await store.get(e.key))!)).not.toBeNull();
+    for (const e of await store.entries()) expect(decodeEntry((await store.get(e.key))!, e.key)).not.toBeNull();
     expect(readdirSync(dir, { recursive: true }).filter((f) => String(f).includes('.tmp-'))).toEqual([]);
   });
 
@@ -156,7 +156,7 @@ describe('outputs', () => {
     await expect(run).rejects.toMatchObject({ code: 'ABORTED' });
     expect(readdirSync(out)).toEqual([]);
     const store = new FolderStore(cacheDir);
-    for (const e of await store.entries()) expect(decodeEntry((await store.get(e.key))!)).not.toBeNull();
+    for (const e of await store.entries()) expect(decodeEntry((await store.get(e.key))!, e.key)).not.toBeNull();
     expect(readdirSync(cacheDir, { recursive: true }).filter((f) => String(f).includes('.tmp-'))).toEqual([]);
   });
 
@@ -226,5 +226,32 @@ describe('bad recipes and bad inputs', () => {
   it('validates baker options by name', () => {
     expect(() => createBaker({ threads: -2 })).toThrow(/option "threads" must be an integer in 0..256/);
     expect(() => createBaker({ cacheMaxBytes: -1 })).toThrow(/option "cacheMaxBytes"/);
+  });
+});
+
+describe('option and callback faults', () => {
+  const sky = encodePfm({ width: 16, height: 8, channels: 3, data: new Float32Array(16 * 8 * 3).fill(0.5) });
+  const recipe: Recipe = { input: { bytes: sky, name: 'flat.pfm' }, size: 8, samples: 'draft' };
+
+  it('a throwing onProgress rejects the bake with that error (pool threads and inline), never hangs', async () => {
+    for (const threads of [0, 2]) {
+      const baker = createBaker({ threads, cache: false });
+      const err = await baker.bake(recipe, { onProgress: () => { throw new Error('boom'); } }).catch((e: unknown) => e);
+      expect(err, `threads ${threads}`).toBeInstanceOf(LightkilnError);
+      expect((err as LightkilnError).message).toContain('onProgress callback threw: boom');
+      // The baker stays usable.
+      expect((await baker.bake(recipe)).artifacts.length).toBeGreaterThan(2);
+      await baker.close();
+    }
+  });
+
+  it('rejects wrong option types with INVALID_OPTION, before any work', async () => {
+    expect(() => createBaker({ cache: 42 as unknown as string })).toThrow(/option "cache"/);
+    const baker = createBaker({ threads: 0, cache: false });
+    for (const options of [{ outDir: 42 }, { onProgress: 'yes' }, { signal: {} }]) {
+      const err = await baker.bake(recipe, options as never).catch((e: unknown) => e);
+      expect((err as LightkilnError).code, JSON.stringify(options)).toBe('INVALID_OPTION');
+    }
+    await baker.close();
   });
 });

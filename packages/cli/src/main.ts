@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 /** The `lightkiln` command: dispatch, exit codes (0 ok, 1 bake failed, 2 bad usage or input), Ctrl-C. */
 
-import { closeSharedPools, LightkilnError } from '@lightkiln/bake';
+import { closeSharedPools, LightkilnError, removeLiveTempFiles } from '@lightkiln/bake';
 import { UsageError } from './args.js';
 import { bakeCommand } from './commands/bake.js';
 import { cacheCommand } from './commands/cache.js';
@@ -24,11 +24,18 @@ const COMMANDS: Record<string, (argv: readonly string[], ctx: CommandContext) =>
 export async function main(argv: readonly string[]): Promise<number> {
   const [command, ...rest] = argv;
   const controller = new AbortController();
-  const onSigint = (): void => {
-    process.stderr.write('\ninterrupted: stopping the bake (no partial outputs are left)\n');
-    controller.abort(new Error('SIGINT'));
+  // SIGINT and SIGTERM alike: stop the work, remove this process's temp files, exit with the failure code.
+  // A second signal exits at once (temp files are still removed).
+  const onSignal = (name: NodeJS.Signals): void => {
+    if (controller.signal.aborted) {
+      removeLiveTempFiles();
+      process.exit(EXIT_FAILED);
+    }
+    process.stderr.write(`\ninterrupted (${name}): stopping (no partial outputs are left)\n`);
+    controller.abort(new Error(name));
   };
-  process.on('SIGINT', onSigint);
+  process.on('SIGINT', onSignal);
+  process.on('SIGTERM', onSignal);
   const ctx: CommandContext = {
     json: rest.includes('--json'),
     quiet: rest.includes('--quiet'),
@@ -56,6 +63,7 @@ export async function main(argv: readonly string[]): Promise<number> {
   } catch (error) {
     if (error instanceof UsageError) {
       process.stderr.write(`lightkiln ${error.command === 'main' ? '' : `${error.command}: `}${error.message}\n\n${USAGE[error.command] ?? USAGE.main}\n`);
+      if (ctx.json) process.stdout.write(`${JSON.stringify({ artifacts: [], error: { code: 'USAGE', message: error.message } }, null, 2)}\n`);
       return EXIT_USAGE;
     }
     if (error instanceof LightkilnError) {
@@ -64,9 +72,12 @@ export async function main(argv: readonly string[]): Promise<number> {
       return error.isUserError ? EXIT_USAGE : EXIT_FAILED;
     }
     process.stderr.write(`lightkiln: internal error: ${error instanceof Error ? error.message : String(error)}\n`);
+    if (ctx.json) process.stdout.write(`${JSON.stringify({ artifacts: [], error: { code: 'INTERNAL', message: error instanceof Error ? error.message : String(error) } }, null, 2)}\n`);
     return EXIT_FAILED;
   } finally {
-    process.off('SIGINT', onSigint);
+    removeLiveTempFiles();
+    process.off('SIGINT', onSignal);
+    process.off('SIGTERM', onSignal);
     await closeSharedPools();
   }
 }

@@ -1,7 +1,9 @@
 /**
- * Cache entry layout: "LKE1", UInt32 metadata length, metadata JSON, padding to 8, then typed arrays
- * (UInt32 kind, UInt32 byte length, bytes, padding to 8), then the SHA-256 of everything before it.
- * A mismatching checksum marks the entry corrupt: it is deleted and rebuilt.
+ * Cache entry layout: "LKE2", UInt32 metadata length, metadata JSON, padding to 8, then typed arrays
+ * (UInt32 kind, UInt32 byte length, bytes, padding to 8), then the SHA-256 of the entry's key (64 hex
+ * characters, ASCII) followed by everything before the digest. Binding the key means an entry copied
+ * over another one's file fails the check. A mismatching checksum marks the entry corrupt: it is deleted
+ * and rebuilt.
  */
 
 import { createHash } from 'node:crypto';
@@ -14,11 +16,11 @@ export interface CacheEntry {
   readonly arrays: readonly EntryArray[];
 }
 
-const MAGIC = 0x31454b4c; // "LKE1" little-endian
+const MAGIC = 0x32454b4c; // "LKE2" little-endian
 const KIND = { f32: 1, f64: 2, u8: 3 } as const;
 const pad8 = (n: number): number => (n + 7) & ~7;
 
-export function encodeEntry(entry: CacheEntry): Uint8Array {
+export function encodeEntry(entry: CacheEntry, key: string): Uint8Array {
   const meta = new TextEncoder().encode(JSON.stringify(entry.meta));
   let size = pad8(8 + meta.length);
   for (const a of entry.arrays) size += 8 + pad8(a.byteLength);
@@ -34,15 +36,15 @@ export function encodeEntry(entry: CacheEntry): Uint8Array {
     out.set(new Uint8Array(a.buffer, a.byteOffset, a.byteLength), pos + 8);
     pos += 8 + pad8(a.byteLength);
   }
-  out.set(createHash('sha256').update(out.subarray(0, size)).digest(), size);
+  out.set(createHash('sha256').update(key, 'latin1').update(out.subarray(0, size)).digest(), size);
   return out;
 }
 
-/** Decodes an entry, or returns null when it is damaged in any way. Arrays are fresh copies. */
-export function decodeEntry(bytes: Uint8Array): CacheEntry | null {
+/** Decodes the entry stored under `key`, or returns null when it is damaged in any way or belongs to another key. Arrays are fresh copies. */
+export function decodeEntry(bytes: Uint8Array, key: string): CacheEntry | null {
   if (bytes.length < 48) return null;
   const size = bytes.length - 32;
-  const digest = createHash('sha256').update(bytes.subarray(0, size)).digest();
+  const digest = createHash('sha256').update(key, 'latin1').update(bytes.subarray(0, size)).digest();
   for (let i = 0; i < 32; i++) if (digest[i] !== bytes[size + i]) return null;
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   if (view.getUint32(0, true) !== MAGIC) return null;
@@ -97,7 +99,7 @@ export class EntryCache {
       this.stats.misses++;
       return null;
     }
-    const entry = decodeEntry(bytes);
+    const entry = decodeEntry(bytes, key);
     if (entry === null) {
       this.stats.corrupt++;
       this.stats.misses++;
@@ -110,7 +112,7 @@ export class EntryCache {
 
   async put(key: string, entry: CacheEntry): Promise<void> {
     if (this.store === null) return;
-    await this.store.put(key, encodeEntry(entry));
+    await this.store.put(key, encodeEntry(entry, key));
     this.stats.writes++;
   }
 }

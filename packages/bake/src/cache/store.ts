@@ -3,9 +3,18 @@
  * and memory (tests). Stores move opaque bytes; entry.ts adds the checksum that detects corruption.
  */
 
-import { randomBytes } from 'node:crypto';
-import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmdirSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { LightkilnError } from '../errors.js';
+import { statOrNull, sweepStaleTempFiles, writeError, writeFileAtomic } from '../files.js';
+
+/** The file that marks a folder as a lightkiln cache; destructive commands refuse a folder without it. */
+export const CACHE_MARKER = '.lightkiln-cache-folder';
+const MARKER_TEXT = 'This folder is a lightkiln cache: `lightkiln cache clear` may delete the entries in it.\n';
+
+export function notACache(dir: string): LightkilnError {
+  return new LightkilnError('INVALID_OPTION', `${dir} is not a lightkiln cache folder (no ${CACHE_MARKER} marker); refusing to delete anything in it`, { file: dir });
+}
 
 export interface CacheEntryInfo {
   readonly key: string;
@@ -29,9 +38,14 @@ function checkKey(key: string): void {
   if (!KEY.test(key)) throw new Error(`invalid cache key "${key}"`);
 }
 
-/** A folder of files named by key, written by temp file + rename; last use is the file's mtime. */
+/**
+ * A folder of files named by key, written by temp file + rename; last use is the file's mtime. The first
+ * write creates the folder's marker file (CACHE_MARKER); deletion needs it.
+ */
 export class FolderStore implements CacheStore {
   readonly dir: string;
+  #claimed = false;
+  readonly #swept = new Set<string>();
 
   constructor(dir: string) {
     this.dir = dir;
@@ -69,15 +83,91 @@ export class FolderStore implements CacheStore {
 
   async put(key: string, bytes: Uint8Array): Promise<void> {
     const path = this.#path(key);
-    mkdirSync(join(this.dir, key.slice(0, 2)), { recursive: true });
-    const tmp = `${path}.tmp-${process.pid}-${randomBytes(6).toString('hex')}`;
+    this.#claim();
+    const shard = join(this.dir, key.slice(0, 2));
     try {
-      writeFileSync(tmp, bytes);
-      renameSync(tmp, path);
+      mkdirSync(shard, { recursive: true });
     } catch (error) {
-      rmSync(tmp, { force: true });
-      throw error;
+      throw writeError(shard, error);
     }
+    if (!this.#swept.has(shard)) {
+      this.#swept.add(shard);
+      sweepStaleTempFiles(shard);
+    }
+    writeFileAtomic(path, bytes);
+  }
+
+  /** Makes the folder a cache (creates it and its marker file) before the first write. */
+  #claim(): void {
+    if (this.#claimed) return;
+    try {
+      mkdirSync(this.dir, { recursive: true });
+      const marker = join(this.dir, CACHE_MARKER);
+      if (!existsSync(marker)) writeFileSync(marker, MARKER_TEXT);
+    } catch (error) {
+      throw writeError(this.dir, error);
+    }
+    this.#claimed = true;
+  }
+
+  /** True when the folder carries the marker of a lightkiln cache (or does not exist). */
+  isCache(): boolean {
+    return !existsSync(this.dir) || existsSync(join(this.dir, CACHE_MARKER));
+  }
+
+  /** Stale temp files of killed writers in the shards (removed unless dryRun). */
+  sweepTemps(dryRun: boolean): { files: number; bytes: number } {
+    let files = 0;
+    let bytes = 0;
+    for (const shard of this.#shards()) {
+      const r = sweepStaleTempFiles(join(this.dir, shard), dryRun);
+      files += r.files;
+      bytes += r.bytes;
+    }
+    return { files, bytes };
+  }
+
+  #shards(): string[] {
+    try {
+      return readdirSync(this.dir).filter((s) => /^[0-9a-f]{2}$/.test(s));
+    } catch {
+      return [];
+    }
+  }
+
+  /**
+   * Removes every entry, stale temp file, empty shard folder and the marker; the folder itself only
+   * when nothing else is left in it. Refuses a folder without the marker: it is not ours.
+   */
+  clear(): { removed: number; freedBytes: number } {
+    if (!existsSync(this.dir)) return { removed: 0, freedBytes: 0 };
+    if (!this.isCache()) throw notACache(this.dir);
+    let removed = 0;
+    let freedBytes = 0;
+    for (const shard of this.#shards()) {
+      const dir = join(this.dir, shard);
+      for (const file of readdirSync(dir)) {
+        if (!/^[0-9a-f]{64}\.entry$/.test(file)) continue;
+        const st = statOrNull(join(dir, file));
+        rmSync(join(dir, file), { force: true });
+        removed++;
+        freedBytes += Number(st?.size ?? 0);
+      }
+      sweepStaleTempFiles(dir);
+      try {
+        rmdirSync(dir);
+      } catch {
+        // not empty: something that is not ours stays
+      }
+    }
+    rmSync(join(this.dir, CACHE_MARKER), { force: true });
+    try {
+      rmdirSync(this.dir);
+    } catch {
+      // not empty
+    }
+    this.#claimed = false;
+    return { removed, freedBytes };
   }
 
   async delete(key: string): Promise<void> {

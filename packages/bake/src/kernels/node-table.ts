@@ -16,9 +16,10 @@ import { NODE_STRIDE } from '../stages/node-geometry.js';
 export const NODE_TABLE_STRIDE = 10;
 
 export interface NodeTableParams {
-  /** Face size of the level, its first texel (pyramid texel index) and its geometry table float offset. */
+  /** Face size of the level, its first texel (pyramid texel index), its first node in the table, and its geometry table float offset. */
   readonly size: number;
   readonly firstTexel: number;
+  readonly nodeOffset: number;
   readonly geometryOffset: number;
 }
 
@@ -43,7 +44,7 @@ export function buildNodeTable(buffers: SharedBuffers, begin: number, end: numbe
     const mv = geo[gi + 2]!;
     const inv = 1 / geo[gi + 7]!;
     const t = params.firstTexel + item;
-    const o = t * NODE_TABLE_STRIDE;
+    const o = (params.nodeOffset + item) * NODE_TABLE_STRIDE;
     nodes[o] = (B[b]! * mc + B[b + 3]! * mu + B[b + 6]! * mv) * inv;
     nodes[o + 1] = (B[b + 1]! * mc + B[b + 4]! * mu + B[b + 7]! * mv) * inv;
     nodes[o + 2] = (B[b + 2]! * mc + B[b + 5]! * mu + B[b + 8]! * mv) * inv;

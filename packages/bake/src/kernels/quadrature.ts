@@ -9,7 +9,7 @@
  * pyramid texel; the walk starts at the six 1 x 1 faces and opens a node (visits its four children)
  * unless it is small against the lobe where it lies: angular radius rho below theta max(|n - g|, gamma
  * alpha), scaled down by sqrt(mean luminance / node luminance) for bright nodes, and not straddling the
- * horizon of n. Level-0 texels are always accepted. E_G averages w over the node's geometry (mean
+ * horizon of n. Texels of the finest level in the node table are always accepted. E_G averages w over the node's geometry (mean
  * direction and its spread from the node table), E_Y over where its light is (the luminance centroid),
  * both by a two-point rule matching the mean and variance of n.l. A constant environment is exact: E_Y
  * equals E_G when the light is uniform.
@@ -35,8 +35,9 @@ export interface QuadratureParams {
   readonly lobeWidth: number;
   /** Mean luminance of the environment (the 1 x 1 level), for the brightness scaling. */
   readonly meanLuminance: number;
-  /** Number of pyramid levels (the coarsest has 1 x 1 faces). */
+  /** Number of pyramid levels (the coarsest has 1 x 1 faces), and the finest level in the node table. */
   readonly levels: number;
+  readonly finestLevel: number;
   /**
    * A node whose largest possible share, Omega w_max max(Y, Ybar) / Ybar, is below this (the lobe
    * integral times the tolerance) is accepted as it is, wherever it lies.
@@ -104,7 +105,8 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
   // The level of 4 x 4 faces (or the finest, for smaller pyramids): its texel around n sets the local
   // luminance scale of the tolerances, so dark regions of a scene lit by a bright sun are not
   // integrated against the sun's share of the mean.
-  const localLevel = top >= 2 ? top - 2 : 0;
+  const finest = params.finestLevel;
+  const localLevel = top - 2 >= finest ? top - 2 : finest;
   const localSize = table[localLevel * LEVEL_TABLE_STRIDE]!;
   const localFirst = table[localLevel * LEVEL_TABLE_STRIDE + 2]!;
   const perFaceOut = size * size;
@@ -165,7 +167,7 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
       const omega = geo[gi + 3]!;
       // Largest n.l in the node, cos(psi - rho) (1 when n lies inside it), bounds w over the node.
       const wMax = lobe(sinPsi * cosR <= cosPsi * sinR ? 1 : cosPsi * cosR + sinPsi * sinR, a2);
-      if (k > 0) {
+      if (k > finest) {
         const yBig = y > yMean ? y : yMean;
         const bound = omega * wMax * yBig;
         if (bound > negligibleY) {

@@ -1,6 +1,7 @@
 /** What every heavy stage needs: the pool, the kernel module, cancellation and progress. */
 
 import { builtModuleUrl, type KernelRef, type WorkerPool } from '@lightkiln/pool';
+import { invalidOption, LightkilnError } from '../errors.js';
 
 export interface BakeProgress {
   /** Stage name: "resample", "pyramid", "specular", "irradiance", "dfg", "encode". */
@@ -37,4 +38,32 @@ export function jobOptions(ctx: StageContext, stage: string): { signal?: AbortSi
     ...(onProgress !== undefined ? { onProgress: (p: { done: number; total: number }) => onProgress({ stage, done: p.done, total: p.total }) } : {}),
     ...(ctx.targetTileCost !== undefined ? { targetTileCost: ctx.targetTileCost } : {}),
   };
+}
+
+/**
+ * A stage context for one bake call, with the caller's progress callback guarded: a callback that throws
+ * stops the bake (its tiles are aborted) instead of escaping into a worker's promise chain, and the bake
+ * then rejects with the callback's error (`failure()`). A non-function onProgress is an option error.
+ */
+export function guardedContext(pool: WorkerPool, options: { readonly signal?: AbortSignal | undefined; readonly onProgress?: unknown }, targetTileCost: number | undefined): { ctx: StageContext; failure: () => unknown } {
+  const user = options.onProgress;
+  if (user !== undefined && typeof user !== 'function') throw invalidOption('onProgress', 'must be a function', typeof user);
+  if (options.signal !== undefined && !(options.signal instanceof AbortSignal)) throw invalidOption('signal', 'must be an AbortSignal', typeof options.signal);
+  if (user === undefined) return { ctx: { pool, signal: options.signal, onProgress: undefined, targetTileCost }, failure: () => undefined };
+  const controller = new AbortController();
+  const signal = options.signal === undefined ? controller.signal : AbortSignal.any([options.signal, controller.signal]);
+  let thrown: unknown;
+  let failed = false;
+  const onProgress = (progress: BakeProgress): void => {
+    if (failed) return;
+    try {
+      (user as (p: BakeProgress) => void)(progress);
+    } catch (error) {
+      failed = true;
+      thrown = error;
+      controller.abort(error);
+    }
+  };
+  const failure = (): unknown => (failed ? new LightkilnError('BAKE_FAILED', `the onProgress callback threw: ${thrown instanceof Error ? thrown.message : String(thrown)}`, { cause: thrown }) : undefined);
+  return { ctx: { pool, signal, onProgress, targetTileCost }, failure };
 }

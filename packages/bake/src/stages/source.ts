@@ -7,6 +7,7 @@
 import { CodecError, decodeImage, decodeKtx2, sniffFormat, type DecodedImage } from '@lightkiln/codecs';
 import { LightkilnError, toLightkilnError } from '../errors.js';
 import type { ResolvedRecipe } from '../recipe.js';
+import { sharedFloat32, toShared } from '@lightkiln/pool';
 
 export interface SanitizeCounts {
   nan: number;
@@ -73,13 +74,14 @@ export function decodeSource(recipe: ResolvedRecipe, inputs: readonly InputFile[
       if (ktx.channels < 3) throw new LightkilnError('INVALID_INPUT', `${input.name}: KTX 2.0 input must have RGB channels`, { file: input.name });
       const level = ktx.levels[0]!;
       const n = ktx.width * ktx.width * 6;
-      const data = new Float32Array(n * 3);
+      const data = sharedFloat32(n * 3);
       for (let t = 0; t < n; t++) for (let c = 0; c < 3; c++) data[t * 3 + c] = level.data[t * ktx.channels + c]!;
       return { kind: 'cube', size: ktx.width, data, sanitized: sanitize(data, recipe, input.name) };
     }
     const image = decodeImage(input.bytes, { file: input.name, limits: limitsFor(recipe) });
     if (image.width < 4 || image.height < 2) throw new LightkilnError('INVALID_INPUT', `${input.name}: equirectangular image of ${image.width} x ${image.height} is too small (at least 4 x 2)`, { file: input.name });
-    const data = toRgb(image);
+    // Shared memory from the start: the pool's kernels read it without a second copy of the image.
+    const data = toShared(toRgb(image));
     return { kind: 'equirect', width: image.width, height: image.height, data, sanitized: sanitize(data, recipe, input.name) };
   } catch (error) {
     if (error instanceof CodecError || !(error instanceof LightkilnError)) throw toLightkilnError(error);
@@ -96,7 +98,7 @@ function decodeFaces(recipe: ResolvedRecipe, inputs: readonly InputFile[]): Sour
     if (image.width !== image.height) throw new LightkilnError('INVALID_INPUT', `${input.name}: cube face must be square, got ${image.width} x ${image.height}`, { file: input.name });
     if (face === 0) {
       size = image.width;
-      data = new Float32Array(size * size * 6 * 3);
+      data = sharedFloat32(size * size * 6 * 3);
     } else if (image.width !== size) {
       throw new LightkilnError('INVALID_INPUT', `${input.name}: face size ${image.width} differs from the first face (${size})`, { file: input.name });
     }

@@ -9,7 +9,7 @@ import {
 } from '@lightkiln/math';
 import { sharedFloat32, sharedFloat64, sharedInt32, type Segment } from '@lightkiln/pool';
 import { LEVEL_TABLE_STRIDE, type QuadratureParams } from '../kernels/quadrature.js';
-import { nodeGeometry, type NodeGeometry } from './node-geometry.js';
+import { NODE_STRIDE, nodeGeometry, type NodeGeometry } from './node-geometry.js';
 import { NODE_TABLE_STRIDE, type NodeTableParams } from '../kernels/node-table.js';
 import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
@@ -158,15 +158,37 @@ export function lobeIntegral(alphaSquared: number): number {
   return 2 * Math.PI * sum;
 }
 
-/** The node table of the quadrature (kernels/node-table.ts) for every level of the pyramid, one pool job. */
-async function buildNodes(pyramid: Pyramid, geometry: NodeGeometry, ctx: StageContext): Promise<Float32Array> {
-  const total = pyramid.data.length / 3;
+/**
+ * The finest pyramid level the quadrature's tree reaches: level 0, unless the next level's texels are
+ * already within the acceptance radius at the peak of the narrowest lobe of the chain (angular radius
+ * below QUADRATURE_THETA QUADRATURE_GAMMA alpha), as at 1024 and above with the default roughness
+ * spacing; then only light brighter than its surroundings (a sun) would be resolved further, and its
+ * luminance centroid and spread stand in for that. Skipping level 0 saves three quarters of the node table.
+ */
+export function finestNodeLevel(pyramid: Pyramid, geometry: NodeGeometry, narrowestAlpha: number): number {
+  const limit = QUADRATURE_THETA * QUADRATURE_GAMMA * narrowestAlpha;
+  let level = 0;
+  // The largest radius of a level is at its face centre; rho of the central texel (NODE_STRIDE field 6).
+  while (level + 1 < pyramid.sizes.length - 2) {
+    const n = pyramid.sizes[level + 1]!;
+    const centre = geometry.offsets[level + 1]! + ((n >> 1) * n + (n >> 1)) * NODE_STRIDE;
+    if (geometry.data[centre + 6]! > limit) break;
+    level++;
+  }
+  return level;
+}
+
+/** The node table of the quadrature (kernels/node-table.ts) for the pyramid levels from `finest` up, one pool job. */
+async function buildNodes(pyramid: Pyramid, geometry: NodeGeometry, finest: number, ctx: StageContext): Promise<Float32Array> {
+  const first = pyramid.offsets[finest]! / 3;
+  const total = pyramid.data.length / 3 - first;
   const nodes = sharedFloat32(total * NODE_TABLE_STRIDE);
   const segments: Segment[] = [];
   const segmentParams: NodeTableParams[] = [];
   pyramid.sizes.forEach((n, k) => {
+    if (k < finest) return;
     segments.push({ begin: 0, end: 6 * n * n, costPerItem: 40, rowLength: n, label: `node table level ${k}` });
-    segmentParams.push({ size: n, firstTexel: pyramid.offsets[k]! / 3, geometryOffset: geometry.offsets[k]! });
+    segmentParams.push({ size: n, firstTexel: pyramid.offsets[k]! / 3, nodeOffset: pyramid.offsets[k]! / 3 - first, geometryOffset: geometry.offsets[k]! });
   });
   await ctx.pool.run({ kernel: kernel('buildNodeTable'), buffers: { pyramid: pyramid.data, centroids: pyramid.centroids, geometry: geometry.data, nodes }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
   return nodes;
@@ -176,11 +198,13 @@ async function buildNodes(pyramid: Pyramid, geometry: NodeGeometry, ctx: StageCo
 async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext, exhaustive = false): Promise<LevelResult[]> {
   const geometry = nodeGeometry(pyramid.sizes[0]!);
   const levels = pyramid.sizes.length;
+  const narrowest = Math.min(...requests.map((req) => alphaFromPerceptualRoughness(req.roughness)));
+  const finest = exhaustive ? 0 : finestNodeLevel(pyramid, geometry, narrowest);
   const levelTable = sharedInt32(levels * LEVEL_TABLE_STRIDE);
   for (let k = 0; k < levels; k++) {
     levelTable[k * LEVEL_TABLE_STRIDE] = pyramid.sizes[k]!;
     levelTable[k * LEVEL_TABLE_STRIDE + 1] = pyramid.offsets[k]!;
-    levelTable[k * LEVEL_TABLE_STRIDE + 2] = pyramid.offsets[k]! / 3;
+    levelTable[k * LEVEL_TABLE_STRIDE + 2] = k < finest ? 0 : (pyramid.offsets[k]! - pyramid.offsets[finest]!) / 3;
     levelTable[k * LEVEL_TABLE_STRIDE + 3] = geometry.offsets[k]!;
   }
   const topOffset = pyramid.offsets[levels - 1]!;
@@ -193,7 +217,7 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
     const alpha = alphaFromPerceptualRoughness(req.roughness);
     const params: QuadratureParams = {
       size: req.size, levelBegin: texels, dstOffset: texels * 3, alphaSquared: alpha * alpha,
-      theta: exhaustive ? 0 : QUADRATURE_THETA, lobeWidth: QUADRATURE_GAMMA * alpha, meanLuminance, levels,
+      theta: exhaustive ? 0 : QUADRATURE_THETA, lobeWidth: QUADRATURE_GAMMA * alpha, meanLuminance, levels, finestLevel: finest,
       negligible: exhaustive ? 0 : QUADRATURE_NEGLIGIBLE * lobeIntegral(alpha * alpha),
       lobeIntegral: lobeIntegral(alpha * alpha), brightRatio: QUADRATURE_BRIGHT,
       shareScale: exhaustive ? 0 : 1 / (QUADRATURE_SHARE * lobeIntegral(alpha * alpha)),
@@ -204,7 +228,7 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
     }
     texels += 6 * req.size * req.size;
   }
-  const nodes = await buildNodes(pyramid, geometry, ctx);
+  const nodes = await buildNodes(pyramid, geometry, finest, ctx);
   const dst = sharedFloat32(texels * 3);
   const visits = sharedFloat32(texels);
   const buffers = { nodes, geometry: geometry.data, levelTable, dst, visits };

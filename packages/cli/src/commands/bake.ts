@@ -1,8 +1,8 @@
 /** `lightkiln bake`: one or many inputs, or a batch file, sharing one pool; failures reported per probe. */
 
-import { readFileSync } from 'node:fs';
-import { dirname, isAbsolute, resolve } from 'node:path';
-import { createBaker, LightkilnError, type BakerOptions, type Recipe } from '@lightkiln/bake';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { dirname, isAbsolute, join, resolve } from 'node:path';
+import { createBaker, LightkilnError, refuseSymlink, resolveRecipe, type BakerOptions, type Recipe } from '@lightkiln/bake';
 import { parseArgs, UsageError } from '../args.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, printJson, type CommandContext } from '../io.js';
 import { createProgress } from '../progress.js';
@@ -72,6 +72,49 @@ function merge(base: Record<string, unknown>, over: Record<string, unknown>): Re
   return out;
 }
 
+/**
+ * Every check that needs no decoding runs before any bake: each recipe resolves, inputs exist and are
+ * files, probe names are unique (two entries would write the same files), the output folder and any
+ * existing file of a probe there are not symbolic links. One bad entry stops the whole batch before work.
+ */
+function preflight(recipes: readonly Recipe[], out: string, batchPath: string | undefined): void {
+  const where = (i: number): string => (batchPath === undefined ? '' : `${batchPath}: entry ${i}: `);
+  refuseSymlink(out);
+  let existing: string[] = [];
+  try {
+    existing = readdirSync(out);
+  } catch {
+    // not there yet
+  }
+  const seen = new Map<string, number>();
+  recipes.forEach((raw, i) => {
+    let name: string;
+    let paths: string[];
+    try {
+      const r = resolveRecipe(raw);
+      name = r.name;
+      const input = raw.input as { path?: string; faces?: string[] } | undefined;
+      paths = [...(input?.path !== undefined ? [input.path] : []), ...(input?.faces ?? [])];
+    } catch (error) {
+      if (error instanceof LightkilnError) throw new LightkilnError(error.code, `${where(i)}${error.message}`, { ...(error.file !== undefined ? { file: error.file } : {}), cause: error });
+      throw error;
+    }
+    for (const path of paths) {
+      let ok = false;
+      try {
+        ok = statSync(path).isFile();
+      } catch {
+        ok = false;
+      }
+      if (!ok) throw new LightkilnError('INVALID_INPUT', `${where(i)}${path}: no such input file`, { file: path });
+    }
+    const first = seen.get(name);
+    if (first !== undefined) throw new LightkilnError('INVALID_RECIPE', `${where(i)}probe name "${name}" is also used by entry ${first}; names must be unique (set "name")`);
+    seen.set(name, i);
+    for (const file of existing) if (file.startsWith(`${name}.`)) refuseSymlink(join(out, file));
+  });
+}
+
 export async function bakeCommand(argv: readonly string[], ctx: CommandContext): Promise<number> {
   const { positionals, flags } = parseArgs('bake', argv, SPEC);
   if (flags.help === true) return -1;
@@ -101,6 +144,7 @@ export async function bakeCommand(argv: readonly string[], ctx: CommandContext):
       input: { path }, ...(flags.name !== undefined ? { name: flags.name } : {}),
     }) as unknown as Recipe);
   }
+  preflight(recipes, out, flags.batch as string | undefined);
   const baker = createBaker(bakerOptions(flags));
   const progress = createProgress({ quiet: ctx.quiet, label: 'lightkiln' });
   const results: Record<string, unknown>[] = [];

@@ -1,9 +1,6 @@
 /** `lightkiln lut`: the DFG lookup table alone, written atomically. */
 
-import { randomBytes } from 'node:crypto';
-import { mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { dirname, join, basename } from 'node:path';
-import { createBaker, LightkilnError } from '@lightkiln/bake';
+import { createBaker, writeFilesAtomic } from '@lightkiln/bake';
 import { parseArgs, UsageError } from '../args.js';
 import { EXIT_OK, printJson, type CommandContext } from '../io.js';
 import { createProgress } from '../progress.js';
@@ -32,15 +29,7 @@ export async function lutCommand(argv: readonly string[], ctx: CommandContext): 
       cloth: flags.cloth === true,
       supercompression: flags.zlib === true ? 'zlib' : 'none',
     }, { signal: ctx.signal, onProgress: progress.onProgress });
-    mkdirSync(dirname(out), { recursive: true });
-    const tmp = join(dirname(out), `.${basename(out)}.tmp-${process.pid}-${randomBytes(4).toString('hex')}`);
-    try {
-      writeFileSync(tmp, lut.bytes);
-      renameSync(tmp, out);
-    } catch (error) {
-      rmSync(tmp, { force: true });
-      throw new LightkilnError('IO_ERROR', `${out}: cannot write (${(error as { code?: string }).code ?? String(error)})`, { file: out });
-    }
+    writeFilesAtomic([{ path: out, bytes: lut.bytes }]);
     progress.done();
     if (ctx.json) printJson(ctx, { artifacts: [{ kind: 'lut', path: out, sha256: lut.sha256, format: lut.format }] });
     else if (!ctx.quiet) ctx.stdout(`lut        ${out}\n`);

@@ -1,8 +1,7 @@
 /** `lightkiln sweep`: error against time for sample budgets and methods; CSV, Markdown, SVG and JSON. */
 
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { LightkilnError, sweepBudgets, sweepReport, SWEEP_METHODS, type SweepMethod } from '@lightkiln/bake';
+import { basename, join } from 'node:path';
+import { refuseSymlink, sweepBudgets, writeFilesAtomic, sweepReport, SWEEP_METHODS, type SweepMethod } from '@lightkiln/bake';
 import { parseArgs, UsageError } from '../args.js';
 import { EXIT_OK, printJson, type CommandContext } from '../io.js';
 import { createProgress } from '../progress.js';
@@ -29,6 +28,10 @@ export async function sweepCommand(argv: readonly string[], ctx: CommandContext)
     if (!SWEEP_METHODS.includes(t)) throw new UsageError('sweep', `--methods takes ${SWEEP_METHODS.join(', ')}, got "${t}"`);
     return t;
   });
+  // Every output path is checked before the (long) sweep runs: a symbolic link there is refused.
+  const probe = (flags.name as string | undefined) ?? (basename(positionals[0]!).replace(/\.[^.]*$/, '').replace(/[^A-Za-z0-9._-]/g, '_').replace(/^[.]+/, '') || 'probe');
+  for (const ext of ['csv', 'md', 'svg', 'json']) refuseSymlink(join(out, `${probe}.sweep.${ext}`));
+  refuseSymlink(out);
   const progress = createProgress({ quiet: ctx.quiet, label: 'lightkiln sweep' });
   try {
     const result = await sweepBudgets({
@@ -42,16 +45,14 @@ export async function sweepCommand(argv: readonly string[], ctx: CommandContext)
     });
     progress.done();
     const report = sweepReport(result);
-    mkdirSync(out, { recursive: true });
     const files = { csv: `${result.probe}.sweep.csv`, markdown: `${result.probe}.sweep.md`, svg: `${result.probe}.sweep.svg`, json: `${result.probe}.sweep.json` };
-    try {
-      writeFileSync(join(out, files.csv), report.csv);
-      writeFileSync(join(out, files.markdown), report.markdown);
-      writeFileSync(join(out, files.svg), report.svg);
-      writeFileSync(join(out, files.json), `${JSON.stringify(result, null, 2)}\n`);
-    } catch (error) {
-      throw new LightkilnError('IO_ERROR', `${out}: cannot write the sweep report (${(error as { code?: string }).code ?? String(error)})`);
-    }
+    const text = (t: string): Uint8Array => new TextEncoder().encode(t);
+    writeFilesAtomic([
+      { path: join(out, files.csv), bytes: text(report.csv) },
+      { path: join(out, files.markdown), bytes: text(report.markdown) },
+      { path: join(out, files.svg), bytes: text(report.svg) },
+      { path: join(out, files.json), bytes: text(`${JSON.stringify(result, null, 2)}\n`) },
+    ]);
     if (ctx.json) printJson(ctx, { artifacts: Object.entries(files).map(([kind, name]) => ({ kind: `sweep-${kind}`, path: join(out, name) })), summary: result.summary, points: result.points });
     else if (!ctx.quiet) ctx.stdout(report.markdown);
     return EXIT_OK;
