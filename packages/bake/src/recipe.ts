@@ -249,7 +249,10 @@ export function resolveRecipe(recipe: Recipe): ResolvedRecipe {
   let work = 0;
   for (let m = 1; m < levels; m++) work += 6 * Math.max(1, r.size >> m) ** 2 * (r.quality === 'reference' ? 6 * r.size * r.size : samples[m]!);
   work += r.dfg.enabled ? r.dfg.size * r.dfg.size * r.dfg.samples : 0;
-  if (work > r.limits.maxWork) throw invalidRecipe(`the bake needs about ${work.toExponential(2)} sample evaluations, over limits.maxWork (${r.limits.maxWork.toExponential(2)}); lower size, samples or use quality 'sampled'`);
+  // The irradiance cube by direct convolution: every output texel sums every texel of a source level of
+  // at most 64 x 64 faces (stages/irradiance.ts).
+  if (r.irradiance.cubeSource === 'convolution') work += 6 * r.irradiance.cubeSize ** 2 * 6 * Math.min(r.size, 64) ** 2;
+  if (work > r.limits.maxWork) throw invalidRecipe(`the bake needs about ${work.toExponential(2)} sample evaluations, over limits.maxWork (${r.limits.maxWork.toExponential(2)}); lower size, samples, irradiance.cubeSize or raise the limit`);
   const inputName = r.input.name ?? (r.input.path !== undefined ? r.input.path : r.input.faces !== undefined ? r.input.faces[0]! : 'input');
   const name = r.name ?? (r.input.path !== undefined ? baseName(r.input.path) : r.input.faces !== undefined ? baseName(r.input.faces[0]!) : baseName(inputName));
   if (!SAFE_NAME.test(name)) throw invalidRecipe(`name: "${name}" must be a plain file name`);

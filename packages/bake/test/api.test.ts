@@ -255,3 +255,15 @@ describe('option and callback faults', () => {
     await baker.close();
   });
 });
+
+describe('the work limit covers the irradiance convolution', () => {
+  it('refuses a large irradiance cube under a small maxWork before any work', async () => {
+    const sky = encodePfm({ width: 16, height: 8, channels: 3, data: new Float32Array(16 * 8 * 3).fill(0.5) });
+    const baker = createBaker({ threads: 0, cache: false });
+    // 6 x 256^2 irradiance texels x 6 x 64^2 source texels = 9.7e9 > 1e9.
+    const err = await baker.bake({ input: { bytes: sky, name: 'flat.pfm' }, size: 64, samples: 'draft', irradiance: { cubeSize: 256 }, limits: { maxWork: 1e9 } }).catch((e: unknown) => e);
+    expect((err as LightkilnError).code).toBe('INVALID_RECIPE');
+    expect((err as LightkilnError).message).toContain('maxWork');
+    await baker.close();
+  });
+});

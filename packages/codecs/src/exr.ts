@@ -8,7 +8,7 @@ import { binary16ToFloat32, float32ToBinary16 } from '@lightkiln/math';
 import { zlibSync } from 'fflate';
 import { inflateBounded } from './zlib.js';
 import { badMagic, CodecError, corrupt, invalidArgument, truncated, unsupported } from './errors.js';
-import { checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
+import { checkByteLength, checkDecodeMemory, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
 export const EXR_MAGIC = 20000630;
 const COMPRESSION_NAMES = ['NONE', 'RLE', 'ZIPS', 'ZIP', 'PIZ', 'PXR24', 'B44', 'B44A', 'DWAA', 'DWAB', 'HTJ2K'];
@@ -169,6 +169,7 @@ export function decodeExr(bytes: Uint8Array, options: ExrDecodeOptions = {}): De
     channelOffsets.push(lineBytes);
     lineBytes += PIXEL_TYPE_BYTES[c.pixelType]! * width;
   }
+  checkDecodeMemory(file, width * height * outChannels * 4 + 2 * linesPerBlock * lineBytes, limits, `${header.channels.length} channels of ${width} x ${height}: float32 pixels and one chunk of ${linesPerBlock} lines`);
   const tableEnd = header.headerEnd + blockCount * 8;
   if (tableEnd > bytes.length) throw truncated(file, 'in the line offset table');
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);

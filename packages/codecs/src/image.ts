@@ -30,18 +30,26 @@ export interface DecodeLimits {
   readonly maxDimension?: number;
   /** Largest input size in bytes. Default 2 GiB. */
   readonly maxBytes?: number;
+  /**
+   * Largest memory a decoder may allocate for one image: the decoded float32 pixels plus its largest
+   * working buffer (an EXR chunk of every channel in the file, say), computed from the header before any
+   * allocation. Default 1.25 GiB (an 8192 x 8192 RGB image and its buffers fit).
+   */
+  readonly maxDecodeMemory?: number;
 }
 
 export interface ResolvedDecodeLimits {
   readonly maxPixels: number;
   readonly maxDimension: number;
   readonly maxBytes: number;
+  readonly maxDecodeMemory: number;
 }
 
 export const DEFAULT_DECODE_LIMITS: ResolvedDecodeLimits = Object.freeze({
   maxPixels: 8192 * 8192,
   maxDimension: 65536,
   maxBytes: 2 * 1024 * 1024 * 1024,
+  maxDecodeMemory: 1.25 * 1024 * 1024 * 1024,
 });
 
 export function resolveDecodeLimits(limits: DecodeLimits | undefined): ResolvedDecodeLimits {
@@ -58,6 +66,14 @@ export function checkDimensions(file: string, width: number, height: number, lim
   }
   if (width * height > limits.maxPixels) {
     throw new CodecError('LIMIT_EXCEEDED', file, `image of ${width * height} pixels exceeds the limit of ${limits.maxPixels} pixels`);
+  }
+  checkDecodeMemory(file, width * height * 16, limits, `${width} x ${height} pixels of RGBA float32`);
+}
+
+/** Throws LIMIT_EXCEEDED when a decode would allocate more than limits.maxDecodeMemory bytes. */
+export function checkDecodeMemory(file: string, bytes: number, limits: ResolvedDecodeLimits, what: string): void {
+  if (!(bytes <= limits.maxDecodeMemory)) {
+    throw new CodecError('LIMIT_EXCEEDED', file, `decoding needs about ${(bytes / 2 ** 20).toFixed(0)} MiB (${what}), over the limit of ${(limits.maxDecodeMemory / 2 ** 20).toFixed(0)} MiB`);
   }
 }
 
