@@ -217,14 +217,14 @@ describe('lightkiln bake', () => {
 
   for (const signal of ['SIGINT', 'SIGTERM'] as const) it(`aborts cleanly on ${signal}: exit 1, no artifact and no temp file`, async () => {
     const out = join(work, `out-${signal}`);
-    const child = spawn(process.execPath, [cli, 'bake', skyPath, '--out', out, '--size', '256', '--samples', 'high', '--no-cache'], { cwd: work, env: { ...process.env, NO_COLOR: '1' } });
+    const child = spawn(process.execPath, [cli, 'bake', skyPath, '--out', out, '--size', '512', '--no-cache'], { cwd: work, env: { ...process.env, NO_COLOR: '1' } });
     let stderr = '';
     const code = await new Promise<number>((resolve) => {
       child.stderr.on('data', (chunk: Buffer) => {
         stderr += chunk.toString();
         if (stderr.includes('specular') && !child.killed) child.kill(signal);
       });
-      // The specular stage of this bake takes several seconds; a plain progress line appears within 2 s.
+      // The specular stage of this bake (512, the default quadrature) takes several seconds.
       setTimeout(() => { if (!child.killed) child.kill(signal); }, 4000);
       child.on('exit', (c) => resolve(c ?? -1));
     });
