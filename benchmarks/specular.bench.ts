@@ -45,7 +45,7 @@ function baseline(pyramid: Pyramid, set: SampleSet, size: number, dst: Float32Ar
   }
 }
 
-function bilinear(acc: Float64Array, cube: Float64Array, offset: number, n: number, face: number, s: number, t: number, weight: number): void {
+function bilinear(acc: Float64Array, cube: Float32Array, offset: number, n: number, face: number, s: number, t: number, weight: number): void {
   const fx = Math.min(n - 1, Math.max(0, s * n - 0.5));
   const fy = Math.min(n - 1, Math.max(0, t * n - 0.5));
   const x0 = Math.floor(fx); const y0 = Math.floor(fy);

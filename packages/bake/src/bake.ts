@@ -27,8 +27,11 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 4, level: 5, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 3, irradianceFile: 3, lutFile: 1, view: 1, preview: 1,
+  source: 1, pyramid: 5, level: 5, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 3, irradianceFile: 3, lutFile: 1, view: 1, preview: 1,
 });
+
+const SOURCE_RELEASED: Promise<SourceImage> = Promise.reject(new LightkilnError('BAKE_FAILED', 'internal: the decoded source was read after the pyramid was built'));
+SOURCE_RELEASED.catch(() => undefined);
 
 export interface BakerOptions {
   /** Worker threads; default the machine's available parallelism; 0 runs inline. Range 0..256. */
@@ -137,11 +140,6 @@ function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
   return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views, preview };
 }
 
-function toF64(a: unknown): Float64Array {
-  if (!(a instanceof Float64Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
-  return a;
-}
-
 function toF32(a: unknown): Float32Array {
   if (!(a instanceof Float32Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
   return a;
@@ -151,6 +149,7 @@ function toF32(a: unknown): Float32Array {
 class BakeRun {
   readonly timings: Record<string, number> = {};
   #source: Promise<SourceImage> | null = null;
+
   #pyramid: Promise<{ pyramid: Pyramid; sanitized: SanitizeCounts }> | null = null;
   #levels: Promise<LevelResult[]> | null = null;
   #sh: Promise<ShResult> | null = null;
@@ -198,12 +197,14 @@ class BakeRun {
       const entry = await this.cache.get(this.keys.pyramid);
       if (entry !== null) {
         const layout = pyramidLayout(this.recipe.size);
-        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF64(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
+        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
       }
       const source = await this.source();
       this.#check();
       const pyramid = await this.#timed('resample', () => buildPyramid(source, this.recipe.size, this.recipe.rotationDeg, this.ctx));
       await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data, pyramid.centroids] });
+      // Nothing reads the decoded source after the pyramid (the pyramid is memoised): let it go.
+      this.#source = SOURCE_RELEASED;
       return { pyramid, sanitized: source.sanitized };
     })();
     return this.#pyramid;

@@ -40,7 +40,7 @@ export interface ReferenceParams {
  * (n.h)^2 = (1 + n.l) / 2 (half-angle identity); GGX D (Walter et al. 2007; 1/pi cancels in the ratio).
  */
 export function referenceSpecular(buffers: SharedBuffers, begin: number, end: number, params: ReferenceParams): void {
-  const pyr = buffers.pyramid as Float64Array;
+  const pyr = buffers.pyramid as Float32Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;
   const a2 = params.alpha * params.alpha;
@@ -90,7 +90,7 @@ export function referenceSpecular(buffers: SharedBuffers, begin: number, end: nu
 }
 
 /** Adds one quadrature point (face f at (u, v), relative area `area`) to acc = (r, g, b, weight). */
-function referencePoint(acc: Float64Array, pyr: Float64Array, N: number, f: number, u: number, v: number, nx: number, ny: number, nz: number, a2: number, area: number): void {
+function referencePoint(acc: Float64Array, pyr: Float32Array, N: number, f: number, u: number, v: number, nx: number, ny: number, nz: number, a2: number, area: number): void {
   const B = CUBE_FACE_BASIS;
   const o9 = f * 9;
   const dx = B[o9]! + u * B[o9 + 3]! + v * B[o9 + 6]!;
@@ -132,7 +132,7 @@ function referencePoint(acc: Float64Array, pyr: Float64Array, N: number, f: numb
  * so a constant environment gives exactly pi L despite texels straddling the horizon.
  */
 export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: number, params: ConvolveParams): void {
-  const pyr = buffers.pyramid as Float64Array;
+  const pyr = buffers.pyramid as Float32Array;
   const dirs = buffers.srcDirs as Float64Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;

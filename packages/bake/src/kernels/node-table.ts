@@ -29,7 +29,7 @@ export interface NodeTableParams {
  * buffers.nodes (float32 out).
  */
 export function buildNodeTable(buffers: SharedBuffers, begin: number, end: number, params: NodeTableParams): void {
-  const pyr = buffers.pyramid as Float64Array;
+  const pyr = buffers.pyramid as Float32Array;
   const cent = buffers.centroids as Float32Array;
   const geo = buffers.geometry as Float64Array;
   const nodes = buffers.nodes as Float32Array;

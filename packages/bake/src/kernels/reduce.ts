@@ -25,7 +25,7 @@ export interface ReduceParams {
 
 /** buffers.pyramid: all levels concatenated (RGB float64); items are parent texels of this level. */
 export function reducePyramid(buffers: SharedBuffers, begin: number, end: number, params: ReduceParams): void {
-  const pyr = buffers.pyramid as Float64Array;
+  const pyr = buffers.pyramid as Float32Array;
   const size = params.size;
   const child = size * 2;
   const perFace = size * size;
@@ -64,7 +64,7 @@ export function reducePyramid(buffers: SharedBuffers, begin: number, end: number
  * (face frame), 0 where the parent is black.
  */
 function reduceCentroids(buffers: SharedBuffers, begin: number, end: number, params: ReduceParams): void {
-  const pyr = buffers.pyramid as Float64Array;
+  const pyr = buffers.pyramid as Float32Array;
   const cent = buffers.centroids as Float32Array;
   const geo = buffers.geometry as Float64Array;
   const size = params.size;

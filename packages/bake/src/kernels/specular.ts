@@ -39,7 +39,7 @@ export interface SpecularParams {
  * low-discrepancy set it is a conservative (high) estimate.
  */
 export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: number, params: SpecularParams): void {
-  const pyr = buffers.pyramid as Float64Array;
+  const pyr = buffers.pyramid as Float32Array;
   const S = buffers.samples as Float64Array;
   const L = buffers.sampleLevels as Int32Array;
   const dst = buffers.dst as Float32Array;

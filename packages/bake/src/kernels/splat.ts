@@ -39,7 +39,7 @@ const CAP_THETA = Math.acos(1 / Math.sqrt(3));
  */
 export function splatEquirect(buffers: SharedBuffers, begin: number, end: number, params: SplatParams): void {
   const src = buffers.src as Float32Array;
-  const dst = buffers.pyramid as Float64Array;
+  const dst = buffers.pyramid as Float32Array;
   const cent = buffers.centroids as Float32Array;
   const geo = buffers.geometry as Float64Array;
   const n = params.size;
@@ -51,7 +51,7 @@ export function splatEquirect(buffers: SharedBuffers, begin: number, end: number
   }
 }
 
-function splatFace(src: Float32Array, dst: Float64Array, cent: Float32Array, geo: Float64Array, face: number, begin: number, end: number, params: SplatParams): void {
+function splatFace(src: Float32Array, dst: Float32Array, cent: Float32Array, geo: Float64Array, face: number, begin: number, end: number, params: SplatParams): void {
   const n = params.size;
   const W = params.srcWidth;
   const H = params.srcHeight;
@@ -279,7 +279,7 @@ function splatFace(src: Float32Array, dst: Float64Array, cent: Float32Array, geo
 }
 
 /** Bilinear source value in the direction of face-frame vector (mc, mu, mv) of face basis b. */
-function centreSample(dst: Float64Array, po: number, src: Float32Array, W: number, H: number, mc: number, mu: number, mv: number, b: number, c: number, sn: number): void {
+function centreSample(dst: Float32Array, po: number, src: Float32Array, W: number, H: number, mc: number, mu: number, mv: number, b: number, c: number, sn: number): void {
   const B = CUBE_FACE_BASIS;
   const dx = B[b]! * mc + B[b + 3]! * mu + B[b + 6]! * mv;
   const dy = B[b + 1]! * mc + B[b + 4]! * mu + B[b + 7]! * mv;

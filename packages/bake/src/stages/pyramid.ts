@@ -19,8 +19,8 @@ export interface Pyramid {
   readonly sizes: readonly number[];
   /** Float offset of each level in data (three floats a texel: the texel offset is offsets / 3). */
   readonly offsets: readonly number[];
-  /** RGB texels of every level (shared memory), float64: conversion-free loads in the hot kernels. */
-  readonly data: Float64Array;
+  /** RGB texels of every level (shared memory), float32 (the kernels accumulate in float64). */
+  readonly data: Float32Array;
   /**
    * Per texel of every level (same order as data), the luminance-weighted mean direction minus the
    * texel's geometric mean direction, in the face frame (C, U, V) of stages/node-geometry.ts; float32.
@@ -40,7 +40,7 @@ export function pyramidLayout(size: number): { sizes: number[]; offsets: number[
   return { sizes, offsets, length };
 }
 
-export function levelView(pyramid: Pyramid, level: number): Float64Array {
+export function levelView(pyramid: Pyramid, level: number): Float32Array {
   const n = pyramid.sizes[level]!;
   return pyramid.data.subarray(pyramid.offsets[level]!, pyramid.offsets[level]! + 6 * n * n * 3);
 }
@@ -66,7 +66,7 @@ export function splatSubcells(width: number, height: number, size: number): numb
 
 export async function buildPyramid(source: SourceImage, size: number, rotationDeg: number, ctx: StageContext): Promise<Pyramid> {
   const layout = pyramidLayout(size);
-  const data = sharedFloat64(layout.length);
+  const data = sharedFloat32(layout.length);
   const centroids = sharedFloat32(layout.length);
   const geometry = nodeGeometry(size);
   const angle = (rotationDeg * Math.PI) / 180;
