@@ -27,7 +27,7 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 5, level: 5, sh: 1, irradianceCube: 1, dfg: 1, specularFile: 3, irradianceFile: 3, lutFile: 1, view: 1, preview: 1,
+  source: 1, pyramid: 5, level: 5, sh: 1, irradianceCube: 1, dfg: 2, specularFile: 3, irradianceFile: 3, lutFile: 2, view: 1, preview: 1,
 });
 
 const SOURCE_RELEASED: Promise<SourceImage> = Promise.reject(new LightkilnError('BAKE_FAILED', 'internal: the decoded source was read after the pyramid was built'));

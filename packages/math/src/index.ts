@@ -9,3 +9,4 @@ export * from './equirect.js';
 export * from './sh.js';
 export * from './packing.js';
 export * from './dfg.js';
+export * from './dfg-exact.js';

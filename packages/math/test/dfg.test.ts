@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  alphaFromPerceptualRoughness, createGgxHalfVectorSet, dfgAverageAlbedo, integrateClothAlbedo, integrateDfg,
+  alphaFromPerceptualRoughness, createGgxHalfVectorSet, dfgAverageAlbedo, integrateClothAlbedo, integrateDfg, integrateDfgExact,
   multipleScatteringAlbedo, turquinCompensation,
 } from '@lightkiln/math';
 
@@ -11,7 +11,8 @@ function dfg(mu: number, perceptualRoughness: number, samples = 16384): [number,
   return [out[0]!, out[1]!];
 }
 
-// REFERENCES.md sec. 5: independent Gauss-Legendre quadrature, height-correlated Smith GGX, f90 = 1.
+// Check values of an independent Gauss-Legendre quadrature of the same integrals (height-correlated
+// Smith GGX, f90 = 1), rounded to 4 decimals.
 const MUS = [0.1, 0.25, 0.5, 0.75, 1];
 const TABLE_A: Record<string, number[]> = {
   '0.1': [0.4158, 0.7629, 0.9683, 0.9989, 0.9999],
@@ -28,7 +29,7 @@ const TABLE_B: Record<string, number[]> = {
   '1': [0.0239, 0.0109, 0.003, 0.0006, 0],
 };
 
-describe('DFG terms (Karis 2013 split sum; table from REFERENCES.md sec. 5)', () => {
+describe('DFG terms (Karis 2013 split sum; check values of an independent quadrature)', () => {
   for (const pr of Object.keys(TABLE_A)) {
     it(`matches the quadrature table within 0.003 at perceptual roughness ${pr}`, () => {
       MUS.forEach((mu, k) => {
@@ -100,6 +101,72 @@ describe('cloth albedo (Estevez & Kulla 2017 D, Neubelt & Pettineo 2013 V)', () 
       expect(fine).toBeGreaterThan(0);
       expect(fine).toBeLessThan(1);
       expect(Math.abs(coarse - fine)).toBeLessThan(2e-3);
+    }
+  });
+});
+
+/**
+ * An independent brute-force quadrature of A and B, for the checks below: midpoint rule over theta_h
+ * (through theta_h = atan(alpha tan x), x uniform, which spreads the points over the GGX peak) and phi_h in
+ * [0, pi], GGX D written out (Walter et al. 2007), dl = 4 (v.h) dh, points with n.l <= 0 dropped.
+ */
+function bruteDfg(mu: number, alpha: number, nTheta = 3000, nPhi = 2000): [number, number] {
+  const a2 = alpha * alpha;
+  const sinV = Math.sqrt(1 - mu * mu);
+  const lambda = (c: number): number => 0.5 * (-1 + Math.sqrt(1 + (a2 * (1 - c * c)) / (c * c)));
+  let A = 0;
+  let B = 0;
+  for (let i = 0; i < nTheta; i++) {
+    const x = ((i + 0.5) / nTheta) * (Math.PI / 2);
+    const th = Math.atan(alpha * Math.tan(x));
+    const dth = (alpha / Math.cos(x) ** 2 / (1 + (alpha * Math.tan(x)) ** 2)) * (Math.PI / 2 / nTheta);
+    const ch = Math.cos(th);
+    const sh = Math.sin(th);
+    const d = a2 / (Math.PI * (ch * ch * (a2 - 1) + 1) ** 2);
+    for (let j = 0; j < nPhi; j++) {
+      const p = ((j + 0.5) / nPhi) * Math.PI;
+      const vh = sinV * sh * Math.cos(p) + mu * ch;
+      const nl = 2 * vh * ch - mu;
+      if (nl <= 0 || vh <= 0) continue;
+      // f (n.l) dl = D G2 / (4 n.v) * 4 (v.h) dh
+      const f = (d * vh) / ((1 + lambda(mu) + lambda(nl)) * mu);
+      const fc = (1 - vh) ** 5;
+      const dw = sh * dth * (Math.PI / nPhi) * 2;
+      A += f * (1 - fc) * dw;
+      B += f * fc * dw;
+    }
+  }
+  return [A, B];
+}
+
+describe('the deterministic DFG quadrature (math/dfg-exact.ts)', () => {
+  const out = new Float64Array(2);
+  const scratch = new Float64Array(2);
+  it('matches the independent check values to their rounding (5e-5 + 1e-5)', () => {
+    for (const pr of Object.keys(TABLE_A)) {
+      MUS.forEach((mu, k) => {
+        integrateDfgExact(out, 0, mu, alphaFromPerceptualRoughness(Number(pr)), scratch);
+        expect(Math.abs(out[0]! - TABLE_A[pr]![k]!), `A(${pr}, ${mu})`).toBeLessThan(6e-5);
+        expect(Math.abs(out[1]! - TABLE_B[pr]![k]!), `B(${pr}, ${mu})`).toBeLessThan(6e-5);
+      });
+    }
+  });
+
+  it('agrees with a brute-force quadrature within 1e-4 down to n.v = 0.5/128 and r = 0.5/128', () => {
+    for (const [mu, r] of [[0.5 / 128, 0.5 / 128], [0.5 / 128, 0.2], [0.5 / 128, 0.6], [0.5 / 128, 1], [1.5 / 128, 0.1], [0.3, 0.02], [0.9, 0.05]] as const) {
+      const alpha = alphaFromPerceptualRoughness(r);
+      integrateDfgExact(out, 0, mu, alpha, scratch);
+      const [a, b] = bruteDfg(mu, alpha);
+      expect(Math.abs(out[0]! - a), `A(${mu}, ${r})`).toBeLessThan(1e-4);
+      expect(Math.abs(out[1]! - b), `B(${mu}, ${r})`).toBeLessThan(1e-4);
+    }
+  });
+
+  it('reaches the mirror limit A = 1 - (1 - n.v)^5, B = (1 - n.v)^5 as r -> 0 (Schlick 1994 at h = n)', () => {
+    for (const mu of [0.1, 0.3, 0.6, 1]) {
+      integrateDfgExact(out, 0, mu, alphaFromPerceptualRoughness(0.01), scratch);
+      expect(out[0]!).toBeCloseTo(1 - (1 - mu) ** 5, 5);
+      expect(out[1]!).toBeCloseTo((1 - mu) ** 5, 5);
     }
   });
 });

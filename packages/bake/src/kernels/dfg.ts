@@ -1,11 +1,11 @@
 /**
  * Stage 6 kernel: the DFG lookup table. Column i <-> n.v = (i + 0.5) / W, row j <-> perceptual roughness
- * (j + 0.5) / H; R = A, G = B (single scattering, height-correlated Smith, Schlick Fresnel; math/dfg.ts),
- * optional E_avg(r) (midpoint rule over the row's own columns, Kulla & Conty 2017) and cloth albedo.
- * Tiles are whole rows, so a row's half-vector set is built once per row.
+ * (j + 0.5) / H; R = A, G = B (single scattering, height-correlated Smith, Schlick Fresnel) by the
+ * deterministic quadrature of math/dfg-exact.ts (about 1e-6), optional E_avg(r) (midpoint rule over the
+ * row's own columns, Kulla & Conty 2017) and cloth albedo (Hammersley, `samples` points).
  */
 
-import { alphaFromPerceptualRoughness, fillGgxHalfVectorSet, integrateClothAlbedo, integrateDfg } from '@lightkiln/math';
+import { alphaFromPerceptualRoughness, integrateClothAlbedo, integrateDfgExact } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
 
 export interface DfgParams {
@@ -23,15 +23,14 @@ export function integrateDfgTable(buffers: SharedBuffers, begin: number, end: nu
   const dst = buffers.dst as Float32Array;
   const W = params.width;
   const C = params.channels;
-  const set = new Float64Array(params.samples * 3);
   const ab = new Float64Array(2);
+  const scratch = new Float64Array(2);
   for (let row = (begin / W) | 0; row * W < end; row++) {
     const alpha = alphaFromPerceptualRoughness((row + 0.5) / params.height);
-    fillGgxHalfVectorSet(set, alpha, params.samples);
     let eavg = 0;
     for (let i = 0; i < W; i++) {
       const mu = (i + 0.5) / W;
-      integrateDfg(ab, 0, mu, alpha, set, params.samples);
+      integrateDfgExact(ab, 0, mu, alpha, scratch);
       const o = (row * W + i) * C;
       dst[o] = ab[0]!;
       dst[o + 1] = ab[1]!;

@@ -34,7 +34,7 @@ export async function bakeDfgTable(options: DfgOptions, ctx: StageContext): Prom
   await ctx.pool.run({
     kernel: kernel('integrateDfgTable'),
     buffers: { dst },
-    segments: [{ begin: 0, end: size * size, costPerItem: options.samples * (options.cloth ? 2 : 1), rowLength: size, label: 'dfg table' }],
+    segments: [{ begin: 0, end: size * size, costPerItem: 2000 + (options.cloth ? options.samples : 0), rowLength: size, label: 'dfg table' }],
     params,
     ...jobOptions(ctx, 'dfg'),
   });
