@@ -259,7 +259,8 @@ describe('lightkiln inspect', () => {
     expect(r.status, r.stderr).toBe(0);
     const doc = JSON.parse(r.stdout);
     expect(doc.files.map((f: { format: string }) => f.format)).toEqual(['ktx2', 'ktx2', 'manifest', 'hdr', 'exr', 'pfm', 'png']);
-    expect(doc.files[0].details.levels[1].roughness).toBe(0.25);
+    // A 16 cube's default chain: 16, 8, 4 (r = 0, 0.5^1.25, 1).
+    expect(doc.files[0].details.levels[1].roughness).toBeCloseTo(0.5 ** 1.25, 12);
     expect(doc.files[0].details.dataFormatDescriptor.transfer).toBe('linear');
     expect(doc.files[2].details.sh.radiance).toHaveLength(9);
     const text = run(['inspect', join(out, 'sky.specular.ktx2')]);

@@ -15,7 +15,7 @@ import { FolderStore, MemoryStore, pruneStore, type CacheStore } from './cache/s
 import { aborted, invalidOption, LightkilnError, toLightkilnError, unsafePath } from './errors.js';
 import { sha256Hex, stageKey } from './hash.js';
 import { CONVENTIONS, MANIFEST_SCHEMA_VERSION, shTriples, TOOL_NAME, TOOL_VERSION, type Manifest, type ManifestArtifact, type ManifestLevel } from './manifest.js';
-import { resolveRecipe, SAFE_NAME, type Recipe, type ResolvedRecipe } from './recipe.js';
+import { resolveRecipe, roughnessToLodFormula, SAFE_NAME, type Recipe, type ResolvedRecipe } from './recipe.js';
 import { guardedContext, warmPool, type BakeProgress, type StageContext } from './stages/context.js';
 import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
 import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
@@ -27,7 +27,7 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 5, level: 5, sh: 1, irradianceCube: 1, dfg: 2, specularFile: 3, irradianceFile: 3, lutFile: 2, view: 1, preview: 1,
+  source: 1, pyramid: 5, level: 5, sh: 1, irradianceCube: 1, dfg: 2, specularFile: 4, irradianceFile: 3, lutFile: 2, view: 1, preview: 1,
 });
 
 const SOURCE_RELEASED: Promise<SourceImage> = Promise.reject(new LightkilnError('BAKE_FAILED', 'internal: the decoded source was read after the pyramid was built'));
@@ -431,6 +431,7 @@ export class Baker {
         const { bytes, clamped } = await encodeTimed(run, () => encodeCubeKtx2(levels.map((l) => l.data), r.size, r.output.specularFormat, r.output.supercompression, {
           'lightkiln.content': 'prefiltered radiance (GGX, split sum, n = v = r)',
           'lightkiln.roughness': roughnessList,
+          'lightkiln.roughnessToLod': roughnessToLodFormula(r.roughness),
           'lightkiln.samples': JSON.stringify(r.samples),
         }));
         return {
@@ -489,6 +490,7 @@ export class Baker {
         inputs: inputs.map((i, k) => ({ path: i.name, byteLength: i.bytes.length, sha256: inputHashes[k]! })),
         recipe: r,
         conventions: CONVENTIONS,
+        roughnessToLod: roughnessToLodFormula(r.roughness),
         levels: specular.meta.levels,
         sh: {
           basis: 'real SH9, order (Y00, Y1-1 y, Y10 z, Y11 x, Y2-2 xy, Y2-1 yz, Y20 3z^2-1, Y21 xz, Y22 x^2-y^2), no Condon-Shortley phase',

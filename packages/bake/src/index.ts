@@ -1,6 +1,6 @@
 export { createBaker, Baker, STAGE_VERSIONS } from './bake.js';
 export type { LutOptions, BakerOptions, BakeRunOptions, BakeResult, BakedArtifact, ArtifactKind, BakePlan, PlanItem } from './bake.js';
-export { resolveRecipe, SAMPLE_PRESETS, SAFE_NAME } from './recipe.js';
+export { defaultLevelCount, levelRoughness, resolveRecipe, roughnessToLod, roughnessToLodFormula, SAMPLE_PRESETS, SAFE_NAME } from './recipe.js';
 export type { Recipe, RecipeInput, ResolvedRecipe, SamplePreset, CubeFormat, ShWindow } from './recipe.js';
 export { LightkilnError, USER_ERROR_CODES, toLightkilnError } from './errors.js';
 export type { LightkilnErrorCode } from './errors.js';

@@ -33,6 +33,11 @@ export interface Manifest {
   readonly inputs: readonly { readonly path: string; readonly byteLength: number; readonly sha256: string }[];
   readonly recipe: Omit<ResolvedRecipe, 'input'> & { readonly input: { readonly path: string | null; readonly name: string; readonly layout: string; readonly faces: readonly string[] | null } };
   readonly conventions: Readonly<Record<string, string>>;
+  /**
+   * The level of detail a shader samples the specular chain at for perceptual roughness r, as a formula
+   * to copy, e.g. "lod = (L - 1) * pow(r, 0.8), L = 6" (textureLod(cube, R, lod)).
+   */
+  readonly roughnessToLod: string;
   readonly levels: readonly ManifestLevel[];
   readonly sh: {
     readonly basis: string;

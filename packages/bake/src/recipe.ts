@@ -42,9 +42,9 @@ export interface Recipe {
   readonly rotationDeg?: number;
   /** Level-0 face size, a power of two in 4..4096. Default 256. Cost grows with size^2. */
   readonly size?: number;
-  /** Radiance levels; default the full chain log2(size) + 1 (down to 1 x 1). */
+  /** Radiance levels; default log2(size) - 2 (down to 8 x 8 faces, at least 2; see defaultLevelCount). */
   readonly levels?: number;
-  /** Perceptual roughness per level, in [0, 1], first 0; default m / (levels - 1). */
+  /** Perceptual roughness per level, in [0, 1], first 0; default (m / (levels - 1))^1.25. */
   readonly roughness?: readonly number[];
   /** Samples per texel: a preset, one number for every level, or one per level. Default 'default'. */
   readonly samples?: SamplePreset | number | readonly number[];
@@ -213,12 +213,58 @@ function baseName(path: string): string {
 }
 
 /** Validates a recipe and fills in every default; throws LightkilnError INVALID_RECIPE naming each bad field. */
+/**
+ * The default chain stops at 8 x 8 faces from size 256 up, at 4 x 4 below: smaller faces cannot hold the
+ * rough lobes under bilinear filtering (sampled like a shader, a 1 x 1 last level was 8-12% off at r = 1,
+ * a 4 x 4 one 1.2%, an 8 x 8 one 0.3%), while below 256 the extra level keeps the roughness steps small
+ * enough for the trilinear blend (at 128, stopping at 8 x 8 left 1.5% at r = 0.3; see
+ * packages/bake/test/runtime-sampling.test.ts). At least 2 levels, at most the full chain.
+ */
+export function defaultLevelCount(size: number): number {
+  const smallest = size >= 256 ? 8 : 4;
+  return Math.min(Math.log2(size) + 1, Math.max(2, Math.log2(size / smallest) + 1));
+}
+
+/** Exponent of the default roughness spacing: r_m = (m / (L - 1))^ROUGHNESS_EXPONENT. */
+export const ROUGHNESS_EXPONENT = 1.25;
+
+/**
+ * Perceptual roughness of level m of L by default: (m / (L - 1))^1.25, denser at low roughness, where the
+ * lobe (alpha = r^2) changes fastest relative to itself. Chosen by the shader-side measure (runtime
+ * sampling against the exact convolution) among powers 1 to 2 and smallest faces 4 to 32.
+ */
+export function levelRoughness(m: number, levels: number): number {
+  return (m / (levels - 1)) ** ROUGHNESS_EXPONENT;
+}
+
+/**
+ * The roughness-to-LOD mapping a shader uses for a chain, as text: the inverse of levelRoughness for the
+ * default spacing, else the piecewise-linear interpolation through (r_m, m).
+ */
+export function roughnessToLodFormula(roughness: readonly number[]): string {
+  const L = roughness.length;
+  if (L < 2) return 'lod = 0';
+  const isDefault = roughness.every((r, m) => Math.abs(r - levelRoughness(m, L)) < 1e-12);
+  if (isDefault) return `lod = (L - 1) * pow(r, ${1 / ROUGHNESS_EXPONENT}), L = ${L}`;
+  return `lod = m + (r - r_m) / (r_(m+1) - r_m) for r_m <= r <= r_(m+1), r_m = [${roughness.join(', ')}], L = ${L}`;
+}
+
+/** The mapping of roughnessToLodFormula as a number: the level of detail for perceptual roughness r. */
+export function roughnessToLod(r: number, roughness: readonly number[]): number {
+  const L = roughness.length;
+  if (L < 2) return 0;
+  const x = Math.min(1, Math.max(0, r));
+  if (roughness.every((v, m) => Math.abs(v - levelRoughness(m, L)) < 1e-12)) return (L - 1) * x ** (1 / ROUGHNESS_EXPONENT);
+  for (let m = 0; m + 1 < L; m++) if (x <= roughness[m + 1]!) return m + Math.max(0, (x - roughness[m]!) / (roughness[m + 1]! - roughness[m]!));
+  return L - 1;
+}
+
 export function resolveRecipe(recipe: Recipe): ResolvedRecipe {
   const parsed = schema.safeParse(recipe);
   if (!parsed.success) throw invalidRecipe(formatIssues(parsed.error));
   const r = parsed.data;
   const maxLevels = Math.log2(r.size) + 1;
-  const levels = r.levels ?? r.roughness?.length ?? maxLevels;
+  const levels = r.levels ?? r.roughness?.length ?? defaultLevelCount(r.size);
   if (levels > maxLevels) throw invalidRecipe(`levels: at most ${maxLevels} levels for size ${r.size} (down to 1 x 1), got ${levels}`);
   let roughness: number[];
   if (r.roughness !== undefined) {
@@ -229,7 +275,7 @@ export function resolveRecipe(recipe: Recipe): ResolvedRecipe {
     }
     roughness = [...r.roughness];
   } else {
-    roughness = Array.from({ length: levels }, (_, m) => (levels === 1 ? 0 : m / (levels - 1)));
+    roughness = Array.from({ length: levels }, (_, m) => (levels === 1 ? 0 : levelRoughness(m, levels)));
   }
   let samples: number[];
   let samplePreset: SamplePreset | 'custom' = 'custom';

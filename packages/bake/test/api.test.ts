@@ -22,7 +22,8 @@ const skyBytes = equirectOf((x, y, z) => {
   const s = Math.exp((0.6 * x + 0.3 * y - 0.74 * z - 1) * 60) * 50;
   return [1 + 0.4 * y + s, 0.9 + 0.2 * x + s, 0.7 + 0.1 * z + s];
 }, 128, 64);
-const recipe = (extra: Partial<Recipe> = {}): Recipe => ({ input: { bytes: skyBytes, name: 'sky.pfm' }, name: 'sky', size: 16, samples: 'draft', dfg: { size: 16, samples: 64 }, ...extra });
+// Five levels (the full chain of a 16 cube), so per-level behaviour has levels to work with.
+const recipe = (extra: Partial<Recipe> = {}): Recipe => ({ input: { bytes: skyBytes, name: 'sky.pfm' }, name: 'sky', size: 16, levels: 5, samples: 'draft', dfg: { size: 16, samples: 64 }, ...extra });
 const hashes = (r: { artifacts: readonly { kind: string; sha256: string }[] }): string[] => r.artifacts.filter((a) => a.kind !== 'manifest').map((a) => a.sha256);
 
 describe('determinism', () => {
@@ -137,7 +138,9 @@ describe('outputs', () => {
     expect(manifest.tool.name).toBe('lightkiln');
     expect(manifest.inputs[0].sha256).toMatch(/^[0-9a-f]{64}$/);
     expect(manifest.recipe.rotationDeg).toBe(0);
-    expect(manifest.levels.map((l: { roughness: number }) => l.roughness)).toEqual([0, 0.25, 0.5, 0.75, 1]);
+    // The default spacing r_m = (m / (L - 1))^1.25.
+    expect(manifest.levels.map((l: { roughness: number }) => l.roughness)).toEqual([0, 1, 2, 3, 4].map((m) => (m / 4) ** 1.25));
+    expect(manifest.roughnessToLod).toBe('lod = (L - 1) * pow(r, 0.8), L = 5');
     expect(manifest.sh.radiance).toHaveLength(9);
     expect(manifest.sh.irradiance[0]).toHaveLength(3);
     for (const a of manifest.artifacts) expect(result.artifacts.find((b) => b.name === a.path)!.sha256).toBe(a.sha256);
@@ -180,8 +183,8 @@ describe('bad recipes and bad inputs', () => {
     ['size not a power of two', recipe({ size: 100 }), /size: must be a power of two/],
     ['size too small', recipe({ size: 2 }), /size: .*4/],
     ['too many levels', recipe({ levels: 9 }), /levels: at most 5 levels for size 16/],
-    ['roughness not starting at 0', recipe({ roughness: [0.1, 0.5, 1] }), /roughness: level 0 is the mirror level/],
-    ['roughness not increasing', recipe({ roughness: [0, 0.5, 0.5] }), /roughness: values must increase/],
+    ['roughness not starting at 0', recipe({ levels: 3, roughness: [0.1, 0.5, 1] }), /roughness: level 0 is the mirror level/],
+    ['roughness not increasing', recipe({ levels: 3, roughness: [0, 0.5, 0.5] }), /roughness: values must increase/],
     ['samples list length', recipe({ samples: [1, 2] }), /samples: must list one count per level \(5\)/],
     ['unknown preset', recipe({ samples: 'ultra' as never }), /samples/],
     ['samples over the limit', recipe({ samples: 100_000 }), /samples.1: 100000 exceeds limits.maxSamples/],

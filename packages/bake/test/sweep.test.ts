@@ -14,7 +14,7 @@ const bytes = equirectOf((x, y, z) => {
 
 describe('sample-budget sweep', () => {
   it('measures error against the reference for every method and budget, and falls with the budget', async () => {
-    const result = await sweepBudgets({ recipe: { input: { bytes, name: 'spot.pfm' }, size: 16 }, budgets: [16, 1024, 'default'], methods: ['plain', 'filtered'], repeats: 1, threads: 2 });
+    const result = await sweepBudgets({ recipe: { input: { bytes, name: 'spot.pfm' }, size: 16, levels: 5 }, budgets: [16, 1024, 'default'], methods: ['plain', 'filtered'], repeats: 1, threads: 2 });
     expect(result.points).toHaveLength(6);
     for (const p of result.points) {
       expect(p.relativeRmse).toHaveLength(5);

@@ -18,7 +18,7 @@ run "lightkiln <command> --help" for a command's options`,
 
   --out DIR            output folder (created if missing)                      required
   --size N             level-0 face size, power of two 4..4096                 default 256
-  --levels N           radiance levels                                         default full chain
+  --levels N           radiance levels                                         default to 8x8 (4x4 <256)
   --samples S          draft | default | high | N samples per texel             default default
   --rotate DEG         rotation about +Y, degrees (positive turns +Z to +X)    default 0
   --format F           rgba16f | rgba32f | rgb9e5 | b10g11r11 (specular cube)  default rgba16f

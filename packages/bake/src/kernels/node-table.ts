@@ -60,8 +60,11 @@ export function buildNodeTable(buffers: SharedBuffers, begin: number, end: numbe
     const yc = cent[t * 3]!;
     const yu = cent[t * 3 + 1]!;
     const yv = cent[t * 3 + 2]!;
-    nodes[o + 7] = B[b]! * yc + B[b + 3]! * yu + B[b + 6]! * yv;
-    nodes[o + 8] = B[b + 1]! * yc + B[b + 4]! * yu + B[b + 7]! * yv;
-    nodes[o + 9] = B[b + 2]! * yc + B[b + 5]! * yu + B[b + 8]! * yv;
+    // Offsets below 1e-9 are rounding of a uniform texel's moments (float32 keeps about 1e-7 of a
+    // direction anyway): exactly 0, so its light is weighted exactly as its geometry.
+    const small = yc * yc + yu * yu + yv * yv < 1e-18;
+    nodes[o + 7] = small ? 0 : B[b]! * yc + B[b + 3]! * yu + B[b + 6]! * yv;
+    nodes[o + 8] = small ? 0 : B[b + 1]! * yc + B[b + 4]! * yu + B[b + 7]! * yv;
+    nodes[o + 9] = small ? 0 : B[b + 2]! * yc + B[b + 5]! * yu + B[b + 8]! * yv;
   }
 }

@@ -4,6 +4,7 @@
  * plus Lambertian diffuse rho E / pi for the dielectric), and the DFG table itself.
  */
 
+import { roughnessToLod } from '../recipe.js';
 import { encodePng, linearToSrgb, type Ktx2File } from '@lightkiln/codecs';
 import { cubeFaceToDirection, directionToCubeFace, luminance } from '@lightkiln/math';
 import { drawText, textWidth } from './font.js';
@@ -65,15 +66,15 @@ function sampleCube(out: Float64Array, data: Float32Array, size: number, channel
   }
 }
 
-/** Prefiltered radiance at roughness r: linear between the two levels whose roughness brackets r. */
+/**
+ * Prefiltered radiance at roughness r as a shader reads it: textureLod at the manifest's roughness-to-LOD
+ * mapping (recipe.ts roughnessToLod), trilinear between the two levels around that lod.
+ */
 function prefiltered(out: Float64Array, input: PreviewInput, r: number, x: number, y: number, z: number): void {
   const levels = input.specular.levels;
-  const rs = input.roughness;
-  let m = 0;
-  while (m < rs.length - 2 && rs[m + 1]! < r) m++;
-  const lo = rs[m]!;
-  const hi = rs[Math.min(m + 1, rs.length - 1)]!;
-  const t = hi > lo ? Math.min(1, Math.max(0, (r - lo) / (hi - lo))) : 0;
+  const lod = Math.min(levels.length - 1, Math.max(0, roughnessToLod(r, input.roughness)));
+  const m = Math.min(Math.floor(lod), levels.length - 1);
+  const t = lod - m;
   const a = new Float64Array(3);
   const b = new Float64Array(3);
   const la = levels[m]!;
