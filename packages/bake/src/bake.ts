@@ -22,6 +22,7 @@ import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
 import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
 import { buildPyramid, pyramidLayout, type Pyramid } from './stages/pyramid.js';
 import { commitFiles, discardFiles, refuseSymlink, sameContent, stageFile, sweepStaleTempFiles, writeError, type StagedFile } from './files.js';
+import { nodeGeometryOnPool } from './stages/node-geometry.js';
 import { decodeSource, type InputFile, type SanitizeCounts, type SourceImage } from './stages/source.js';
 import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specular.js';
 
@@ -171,7 +172,11 @@ class BakeRun {
   }
 
   source(): Promise<SourceImage> {
-    if (this.#source === null) warmPool(this.ctx);
+    if (this.#source === null) {
+      warmPool(this.ctx);
+      // The quadrature's node geometry is built on a worker while this thread decodes.
+      nodeGeometryOnPool(this.recipe.size, this.ctx).catch(() => undefined);
+    }
     this.#source ??= this.#timed('decode', async () => {
       const entry = await this.cache.get(this.keys.source);
       if (entry !== null) {
@@ -425,7 +430,9 @@ export class Baker {
       const run = new BakeRun(recipe, inputs, keys, cache, ctx);
       const r = recipe;
       const roughnessList = JSON.stringify(r.roughness);
-      const specular = await run.file<SpecularMeta>(keys.specularFile, async () => {
+      // The three files run side by side: the DFG table and the irradiance do not wait for the specular
+      // chain, and their pool jobs fill the threads the chain's last tiles leave idle.
+      const specularP = run.file<SpecularMeta>(keys.specularFile, async () => {
         const levels = await run.levels();
         const { sanitized } = await run.pyramid();
         const { bytes, clamped } = await encodeTimed(run, () => encodeCubeKtx2(levels.map((l) => l.data), r.size, r.output.specularFormat, r.output.supercompression, {
@@ -443,7 +450,7 @@ export class Baker {
           },
         };
       });
-      const irradiance = await run.file<IrradianceMeta>(keys.irradianceFile, async () => {
+      const irradianceP = run.file<IrradianceMeta>(keys.irradianceFile, async () => {
         const sh = await run.sh();
         const cube = await run.irradianceCube();
         const { bytes, clamped } = await encodeTimed(run, () => encodeCubeKtx2([cube], r.irradiance.cubeSize, r.output.irradianceFormat, r.output.supercompression, {
@@ -452,10 +459,16 @@ export class Baker {
         }));
         return { bytes, meta: { radiance: [...sh.radiance], irradiance: [...sh.irradiance], clamped } };
       });
-      const lut = r.dfg.enabled ? await run.file<{ channels: string[] }>(keys.lutFile, async () => {
+      const lutP = r.dfg.enabled ? run.file<{ channels: string[] }>(keys.lutFile, async () => {
         const table = await run.dfg();
         return { bytes: await encodeTimed(run, () => encodeDfgKtx2(table, r.output.supercompression, r.dfg.samples)), meta: { channels: [...table.channelNames] } };
-      }) : null;
+      }) : Promise.resolve(null);
+      // Settle all three before failing, so no pool work of this bake outlives it.
+      const settled = await Promise.allSettled([specularP, irradianceP, lutP]);
+      for (const outcome of settled) if (outcome.status === 'rejected') throw outcome.reason;
+      const specular = await specularP;
+      const irradiance = await irradianceP;
+      const lut = await lutP;
       const views = [];
       for (const view of keys.views) {
         views.push({ view, file: await run.file<Record<string, never>>(view.key, async () => {

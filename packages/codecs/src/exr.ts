@@ -8,7 +8,7 @@ import { binary16ToFloat32, float32ToBinary16 } from '@lightkiln/math';
 import { zlibSync } from 'fflate';
 import { inflateBounded } from './zlib.js';
 import { badMagic, CodecError, corrupt, invalidArgument, truncated, unsupported } from './errors.js';
-import { checkByteLength, checkDecodeMemory, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
+import { allocatePixels, checkByteLength, checkDecodeMemory, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
 export const EXR_MAGIC = 20000630;
 const COMPRESSION_NAMES = ['NONE', 'RLE', 'ZIPS', 'ZIP', 'PIZ', 'PXR24', 'B44', 'B44A', 'DWAA', 'DWAB', 'HTJ2K'];
@@ -173,7 +173,7 @@ export function decodeExr(bytes: Uint8Array, options: ExrDecodeOptions = {}): De
   const tableEnd = header.headerEnd + blockCount * 8;
   if (tableEnd > bytes.length) throw truncated(file, 'in the line offset table');
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const data = new Float32Array(width * height * outChannels);
+  const data = allocatePixels(width * height * outChannels);
   if (outChannels === 4 && pick('A') < 0) data.fill(1);
   const seen = new Uint8Array(blockCount);
   for (let b = 0; b < blockCount; b++) {

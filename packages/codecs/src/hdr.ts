@@ -7,7 +7,7 @@
 
 import { floorLog2 } from '@lightkiln/math';
 import { badMagic, CodecError, corrupt, truncated, unsupported } from './errors.js';
-import { checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
+import { allocatePixels, checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
 export interface HdrHeader {
   /** "#?RADIANCE" or "#?RGBE". */
@@ -109,7 +109,7 @@ export function decodeHdr(bytes: Uint8Array, options: HdrDecodeOptions = {}): De
   const innerCount = yMajor ? width : height;
   // Minimum bytes: a run-length scanline holds at least 4 header bytes plus 2 bytes per plane packet.
   if (bytes.length - header.dataOffset < outerCount * 4) throw truncated(file, 'in the pixel data');
-  const data = new Float32Array(width * height * 3);
+  const data = allocatePixels(width * height * 3);
   const scan = new Uint8Array(innerCount * 4);
   let pos = header.dataOffset;
   // 2^(e - 136) / exposure for every exponent byte (e = 0 is black).

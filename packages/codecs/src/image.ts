@@ -70,6 +70,14 @@ export function checkDimensions(file: string, width: number, height: number, lim
   checkDecodeMemory(file, width * height * 16, limits, `${width} x ${height} pixels of RGBA float32`);
 }
 
+/**
+ * The float32 pixel array of a decoded image, in shared memory where the platform has it: worker pools
+ * then read the image without a copy, and every other use sees an ordinary Float32Array.
+ */
+export function allocatePixels(count: number): Float32Array {
+  return typeof SharedArrayBuffer === 'function' ? new Float32Array(new SharedArrayBuffer(count * 4)) : new Float32Array(count);
+}
+
 /** Throws LIMIT_EXCEEDED when a decode would allocate more than limits.maxDecodeMemory bytes. */
 export function checkDecodeMemory(file: string, bytes: number, limits: ResolvedDecodeLimits, what: string): void {
   if (!(bytes <= limits.maxDecodeMemory)) {

@@ -5,7 +5,7 @@
  */
 
 import { badMagic, corrupt, truncated } from './errors.js';
-import { checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
+import { allocatePixels, checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
 export interface PfmDecodeOptions {
   readonly file?: string;
@@ -40,7 +40,7 @@ export function decodePfm(bytes: Uint8Array, options: PfmDecodeOptions = {}): De
   if (bytes.length - pos < need) throw truncated(file, `in the raster (${bytes.length - pos} of ${need} bytes)`);
   const little = scale < 0;
   const view = new DataView(bytes.buffer, bytes.byteOffset + pos, need);
-  const data = new Float32Array(width * height * channels);
+  const data = allocatePixels(width * height * channels);
   const rowValues = width * channels;
   for (let stored = 0; stored < height; stored++) {
     const row = height - 1 - stored;

@@ -6,6 +6,7 @@ import { integrateDfgTable } from './dfg.js';
 import { reducePyramid } from './reduce.js';
 import { resampleCube, resampleEquirect } from './resample.js';
 import { buildNodeTable } from './node-table.js';
+import { buildNodeGeometry } from '../stages/node-geometry.js';
 import { prefilterQuadrature } from './quadrature.js';
 import { splatEquirect } from './splat.js';
 export { warmUp } from './warm-up.js';
@@ -18,6 +19,7 @@ export const kernels: KernelModule['kernels'] = {
   prefilterSpecular,
   prefilterQuadrature,
   buildNodeTable,
+  buildNodeGeometry,
   splatEquirect,
   referenceSpecular,
   convolveIrradiance,

@@ -8,7 +8,8 @@
  */
 
 import { cubeTexelSolidAngle } from '@lightkiln/math';
-import { sharedFloat64 } from '@lightkiln/pool';
+import { sharedFloat64, type SharedBuffers } from '@lightkiln/pool';
+import { kernel, type StageContext } from './context.js';
 
 /** Numbers per texel in the table: mean (C, U, V), solid angle, cos rho, sin rho, rho, |mean|. */
 export const NODE_STRIDE = 8;
@@ -27,10 +28,8 @@ const GL_W = [0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478
 
 const cache = new Map<number, NodeGeometry>();
 
-/** The node table of a pyramid whose level 0 has face size `size` (memoised per size). */
-export function nodeGeometry(size: number): NodeGeometry {
-  const hit = cache.get(size);
-  if (hit !== undefined) return hit;
+/** Face sizes and float offsets of every level's table, and the table's length. */
+export function nodeGeometryLayout(size: number): { sizes: number[]; offsets: number[]; length: number } {
   const sizes: number[] = [];
   const offsets: number[] = [];
   let length = 0;
@@ -39,7 +38,53 @@ export function nodeGeometry(size: number): NodeGeometry {
     offsets.push(length);
     length += n * n * NODE_STRIDE;
   }
+  return { sizes, offsets, length };
+}
+
+const pending = new Map<number, Promise<NodeGeometry>>();
+
+/**
+ * The node table built on a pool worker (kernel buildNodeGeometry), so the calling thread is free (it
+ * decodes the input meanwhile); memoised per size, shared with nodeGeometry().
+ */
+export function nodeGeometryOnPool(size: number, ctx: StageContext): Promise<NodeGeometry> {
+  const hit = cache.get(size);
+  if (hit !== undefined) return Promise.resolve(hit);
+  let p = pending.get(size);
+  if (p === undefined) {
+    const { sizes, offsets, length } = nodeGeometryLayout(size);
+    const data = sharedFloat64(length);
+    p = ctx.pool.run({ kernel: kernel('buildNodeGeometry'), buffers: { geometry: data }, segments: [{ begin: 0, end: 1, costPerItem: 1, label: 'node geometry' }], params: { size } })
+      .then(() => {
+        const geometry: NodeGeometry = { sizes, offsets, data };
+        if (!cache.has(size)) cache.set(size, geometry);
+        return cache.get(size)!;
+      })
+      .finally(() => pending.delete(size));
+    pending.set(size, p);
+  }
+  return p;
+}
+
+/** Kernel: fills buffers.geometry with the table of face size params.size (one item, the whole table). */
+export function buildNodeGeometry(buffers: SharedBuffers, _begin: number, _end: number, params: { size: number }): void {
+  const { sizes, offsets } = nodeGeometryLayout(params.size);
+  fillNodeGeometry(buffers.geometry as Float64Array, params.size, sizes, offsets);
+}
+
+/** The node table of a pyramid whose level 0 has face size `size` (memoised per size). */
+export function nodeGeometry(size: number): NodeGeometry {
+  const hit = cache.get(size);
+  if (hit !== undefined) return hit;
+  const { sizes, offsets, length } = nodeGeometryLayout(size);
   const data = sharedFloat64(length);
+  fillNodeGeometry(data, size, sizes, offsets);
+  const geometry: NodeGeometry = { sizes, offsets, data };
+  cache.set(size, geometry);
+  return geometry;
+}
+
+function fillNodeGeometry(data: Float64Array, size: number, sizes: readonly number[], offsets: readonly number[]): void {
   // Level 0: first moments integral (1, u, v) / r^4 du dv (d = (C + uU + vV) / r, dw = du dv / r^3).
   const n0 = size;
   const h = 1 / n0;
@@ -116,7 +161,4 @@ export function nodeGeometry(size: number): NodeGeometry {
       }
     }
   }
-  const geometry: NodeGeometry = { sizes, offsets, data };
-  cache.set(size, geometry);
-  return geometry;
 }

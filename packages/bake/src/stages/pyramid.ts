@@ -11,7 +11,7 @@ import type { ResampleParams } from '../kernels/resample.js';
 import type { ReduceParams } from '../kernels/reduce.js';
 import type { SplatParams } from '../kernels/splat.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
-import { nodeGeometry } from './node-geometry.js';
+import { nodeGeometryOnPool } from './node-geometry.js';
 import type { SourceImage } from './source.js';
 
 export interface Pyramid {
@@ -68,7 +68,7 @@ export async function buildPyramid(source: SourceImage, size: number, rotationDe
   const layout = pyramidLayout(size);
   const data = sharedFloat32(layout.length);
   const centroids = sharedFloat32(layout.length);
-  const geometry = nodeGeometry(size);
+  const geometry = await nodeGeometryOnPool(size, ctx);
   const angle = (rotationDeg * Math.PI) / 180;
   const faceItems = size * size;
   if (source.kind === 'equirect') {

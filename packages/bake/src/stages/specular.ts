@@ -9,7 +9,7 @@ import {
 } from '@lightkiln/math';
 import { sharedFloat32, sharedFloat64, sharedInt32, type Segment } from '@lightkiln/pool';
 import { LEVEL_TABLE_STRIDE, type QuadratureParams } from '../kernels/quadrature.js';
-import { NODE_STRIDE, nodeGeometry, type NodeGeometry } from './node-geometry.js';
+import { NODE_STRIDE, nodeGeometryOnPool, type NodeGeometry } from './node-geometry.js';
 import { NODE_TABLE_STRIDE, type NodeTableParams } from '../kernels/node-table.js';
 import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
@@ -196,7 +196,7 @@ async function buildNodes(pyramid: Pyramid, geometry: NodeGeometry, finest: numb
 
 /** The default: every requested level by the hierarchical quadrature (kernels/quadrature.ts), one pool job. */
 async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext, exhaustive = false): Promise<LevelResult[]> {
-  const geometry = nodeGeometry(pyramid.sizes[0]!);
+  const geometry = await nodeGeometryOnPool(pyramid.sizes[0]!, ctx);
   const levels = pyramid.sizes.length;
   const narrowest = Math.min(...requests.map((req) => alphaFromPerceptualRoughness(req.roughness)));
   const finest = exhaustive ? 0 : finestNodeLevel(pyramid, geometry, narrowest);
