@@ -9,6 +9,7 @@ import { sweepBench } from './sweep.bench.js';
 import { mathBench } from './math.bench.js';
 import { poolBench } from './pool.bench.js';
 import { specularBench } from './specular.bench.js';
+import { supercompressionBench } from './supercompression.bench.js';
 
 const suites: Record<string, () => Promise<void>> = {
   math: mathBench,
@@ -19,6 +20,7 @@ const suites: Record<string, () => Promise<void>> = {
   codecs: codecsBench,
   bake: bakeBench,
   sweep: sweepBench,
+  supercompression: supercompressionBench,
 };
 
 const wanted = process.argv.slice(2);

@@ -5,7 +5,7 @@
 import { spawnSync } from 'node:child_process';
 const rounds = Number(process.argv[2] ?? 10);
 const runs = Number(process.argv[3] ?? 20000);
-const formats = 7;
+const formats = 8;
 for (let r = 0; r < rounds; r++) {
   const seed = (Date.now() ^ (r * 2654435761)) >>> 0;
   const t0 = performance.now();

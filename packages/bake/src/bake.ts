@@ -7,7 +7,7 @@
 
 import { lstatSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { decodeKtx2, encodeExr, encodeHdr } from '@lightkiln/codecs';
+import { decodeKtx2, initZstd, encodeExr, encodeHdr } from '@lightkiln/codecs';
 import { renderContactSheet } from './preview/sheet.js';
 import { getSharedPool, toShared, WorkerPool } from '@lightkiln/pool';
 import { EntryCache, type CacheStats } from './cache/entry.js';
@@ -84,7 +84,7 @@ export interface LutOptions {
   readonly samples?: number;
   readonly multiscatter?: boolean;
   readonly cloth?: boolean;
-  readonly supercompression?: 'none' | 'zlib';
+  readonly supercompression?: 'none' | 'zlib' | 'zstd';
 }
 
 export interface PlanItem {
@@ -546,6 +546,7 @@ export class Baker {
       const bakeRun = new BakeRun(resolved, [], keys, cache, ctx);
       const file = await bakeRun.file<{ channels: string[] }>(keys.lutFile, async () => {
         const table = await bakeRun.dfg();
+        if (resolved.output.supercompression === 'zstd') await initZstd();
         return { bytes: encodeDfgKtx2(table, resolved.output.supercompression, resolved.dfg.samples), meta: { channels: [...table.channelNames] } };
       });
       return { kind: 'lut', name: 'dfg.ktx2', path: null, format: file.meta.channels.length === 2 ? 'ktx2/rg16f' : 'ktx2/rgba16f', bytes: file.bytes, sha256: sha256Hex(file.bytes), fromCache: file.fromCache };
@@ -563,6 +564,8 @@ export class Baker {
 }
 
 async function encodeTimed<T>(run: BakeRun, fn: () => T): Promise<T> {
+  // The Zstandard encoder is WebAssembly, loaded once (a few ms) before its first use.
+  if (run.recipe.output.supercompression === 'zstd') await initZstd();
   const t0 = performance.now();
   const bytes = fn();
   run.timings.encode = (run.timings.encode ?? 0) + performance.now() - t0;

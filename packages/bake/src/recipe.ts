@@ -93,8 +93,8 @@ export interface Recipe {
   readonly output?: {
     readonly specularFormat?: CubeFormat;
     readonly irradianceFormat?: CubeFormat;
-    /** KTX 2.0 supercompression. Default 'none'. */
-    readonly supercompression?: 'none' | 'zlib';
+    /** KTX 2.0 supercompression: 'zstd' (scheme 2, what web loaders read), 'zlib' (scheme 3) or 'none'. Default 'none'. */
+    readonly supercompression?: 'none' | 'zlib' | 'zstd';
     /** Extra inspection files of level 0 and the irradiance cube (horizontal cross). Default none. */
     readonly views?: readonly ('hdr' | 'exr')[];
     /** Write `<name>.preview.png`, the contact sheet (levels, irradiance, shaded spheres, DFG). Default false. */
@@ -140,7 +140,7 @@ export interface ResolvedRecipe {
   readonly quality: 'quadrature' | 'sampled' | 'reference';
   readonly irradiance: { readonly shWindow: ShWindow; readonly shWindowWidth: number; readonly cubeSize: number; readonly cubeSource: 'convolution' | 'sh9' };
   readonly dfg: { readonly enabled: boolean; readonly size: number; readonly samples: number; readonly multiscatter: boolean; readonly cloth: boolean };
-  readonly output: { readonly specularFormat: CubeFormat; readonly irradianceFormat: CubeFormat; readonly supercompression: 'none' | 'zlib'; readonly views: readonly ('hdr' | 'exr')[]; readonly preview: boolean };
+  readonly output: { readonly specularFormat: CubeFormat; readonly irradianceFormat: CubeFormat; readonly supercompression: 'none' | 'zlib' | 'zstd'; readonly views: readonly ('hdr' | 'exr')[]; readonly preview: boolean };
   readonly sanitize: { readonly nonFinite: 'repair' | 'reject'; readonly negative: 'clamp' | 'reject'; readonly maxRadiance: number };
   readonly limits: { readonly maxInputBytes: number; readonly maxInputPixels: number; readonly maxSamples: number; readonly maxWork: number };
 }
@@ -185,7 +185,7 @@ const schema = z.object({
   output: z.object({
     specularFormat: cubeFormat.default('rgba16f'),
     irradianceFormat: cubeFormat.default('rgba16f'),
-    supercompression: z.enum(['none', 'zlib']).default('none'),
+    supercompression: z.enum(['none', 'zlib', 'zstd']).default('none'),
     views: z.array(z.enum(['hdr', 'exr'])).default([]),
     preview: z.boolean().default(false),
   }).strict().default({ specularFormat: 'rgba16f', irradianceFormat: 'rgba16f', supercompression: 'none', views: [], preview: false }),

@@ -24,7 +24,8 @@ run "lightkiln <command> --help" for a command's options`,
   --format F           rgba16f | rgba32f | rgb9e5 | b10g11r11 (specular cube)  default rgba16f
   --irradiance-size N  irradiance cube face size                               default 32
   --no-filtered        plain importance sampling (no source mip per sample)
-  --zlib               zlib supercompression in the KTX 2.0 files
+  --zstd               Zstandard supercompression in the KTX 2.0 files (scheme 2)
+  --zlib               zlib supercompression in the KTX 2.0 files (scheme 3)
   --views              also write .hdr crosses of level 0 and the irradiance
   --preview            also write <name>.preview.png, the contact sheet
   --name NAME          probe name (one input only)                             default input file name
@@ -42,6 +43,7 @@ run "lightkiln <command> --help" for a command's options`,
   --samples N      samples per texel                       default 1024
   --multiscatter   add E_avg(r) as a third channel
   --cloth          add the cloth (sheen) albedo channel
+  --zstd           Zstandard supercompression
   --zlib           zlib supercompression
   --threads N, --no-cache, --cache-dir DIR, --json, --quiet`,
   inspect: `usage: lightkiln inspect <file...> [--json]`,

@@ -14,3 +14,4 @@ export { encodeKtx2, decodeKtx2, buildDfd, packTexels, unpackTexels, ktx2FormatI
 export type { Ktx2Format, Ktx2EncodeInput, Ktx2File, Ktx2Level, Ktx2Supercompression, Ktx2DecodeOptions } from './ktx2.js';
 export { sniffFormat, decodeImage } from './sniff.js';
 export type { SniffedFormat, DecodeImageOptions } from './sniff.js';
+export { initZstd, zstdReady } from './zstd.js';

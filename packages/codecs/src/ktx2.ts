@@ -1,12 +1,14 @@
 /**
  * KTX 2.0 container (Khronos KTX 2.0 specification) for 2D textures and cubemaps with mip chains, the
  * float formats lightkiln ships, a Data Format Descriptor per the Khronos Data Format Specification 1.3,
- * key/value metadata (KTXwriter, KTXorientation, our own keys) and optional zlib supercompression.
+ * key/value metadata (KTXwriter, KTXorientation, our own keys) and optional zlib (scheme 3) or Zstandard
+ * (scheme 2) supercompression.
  */
 
 import { binary16ToFloat32, decodeB10g11r11, decodeRgb9e5, encodeB10g11r11, encodeRgb9e5, float32ToBinary16 } from '@lightkiln/math';
 import { zlibSync } from 'fflate';
 import { inflateBounded } from './zlib.js';
+import { zstdCompress, zstdDecompressExactly } from './zstd.js';
 import { badMagic, CodecError, corrupt, invalidArgument, truncated, unsupported } from './errors.js';
 import { checkByteLength, resolveDecodeLimits, type DecodeLimits } from './image.js';
 
@@ -125,7 +127,7 @@ export function unpackTexels(format: Ktx2Format, bytes: Uint8Array): Float32Arra
   return out;
 }
 
-export type Ktx2Supercompression = 'none' | 'zlib';
+export type Ktx2Supercompression = 'none' | 'zlib' | 'zstd';
 
 export interface Ktx2EncodeInput {
   readonly format: Ktx2Format;
@@ -146,6 +148,8 @@ export interface Ktx2EncodeInput {
   readonly supercompression?: Ktx2Supercompression;
   /** zlib level when supercompressed; default 6. */
   readonly zlibLevel?: number;
+  /** Zstandard level when supercompressed with 'zstd' (needs initZstd() first); default 3 (see benchmarks/supercompression.bench.ts). */
+  readonly zstdLevel?: number;
 }
 
 const align = (n: number, a: number): number => Math.ceil(n / a) * a;
@@ -163,8 +167,11 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   const levelCount = input.levels.length;
   const maxLevels = Math.floor(Math.log2(Math.max(width, height))) + 1;
   if (levelCount < 1 || levelCount > maxLevels) throw invalidArgument(file, `level count ${levelCount} outside 1..${maxLevels}`);
-  const scheme = (input.supercompression ?? 'none') === 'zlib' ? 3 : 0;
-  // Level payloads (after optional zlib).
+  const sc = input.supercompression ?? 'none';
+  if (sc !== 'none' && sc !== 'zlib' && sc !== 'zstd') throw invalidArgument(file, `unknown supercompression "${String(sc)}"`);
+  // KTX 2.0 supercompressionScheme: 2 = Zstandard, 3 = zlib (KTX 2.0 specification, section 3.4).
+  const scheme = sc === 'zstd' ? 2 : sc === 'zlib' ? 3 : 0;
+  // Level payloads (after optional supercompression, one frame or stream per level).
   const payloads: Uint8Array[] = [];
   const uncompressed: number[] = [];
   for (let l = 0; l < levelCount; l++) {
@@ -172,7 +179,7 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
     const h = Math.max(1, height >> l);
     const raw = packTexels(input.format, input.levels[l]!, w * h * faceCount);
     uncompressed.push(raw.length);
-    payloads.push(scheme === 3 ? zlibSync(raw, { level: (input.zlibLevel ?? 6) as 0 | 1 | 2 | 3 | 4 | 5 | 6 | 7 | 8 | 9 }) : raw);
+    payloads.push(scheme === 3 ? zlibSync(raw, { level: (input.zlibLevel ?? 6) as 0 | 1 | 2 | 3 | 4 | 5 | 6 | 7 | 8 | 9 }) : scheme === 2 ? zstdCompress(raw, input.zstdLevel ?? 3, file) : raw);
   }
   // Key/value data, sorted by key code points.
   const enc = new TextEncoder();
@@ -261,7 +268,7 @@ export interface Ktx2DecodeOptions {
   readonly limits?: DecodeLimits;
 }
 
-/** Reads a KTX 2.0 file written in one of our formats (2D or cubemap, none or zlib). */
+/** Reads a KTX 2.0 file written in one of our formats (2D or cubemap, none, zlib or Zstandard). */
 export function decodeKtx2(bytes: Uint8Array, options: Ktx2DecodeOptions = {}): Ktx2File {
   const file = options.file ?? 'input.ktx2';
   const limits = resolveDecodeLimits(options.limits);
@@ -286,7 +293,7 @@ export function decodeKtx2(bytes: Uint8Array, options: Ktx2DecodeOptions = {}): 
   if (depth > 0) throw unsupported(file, '3D textures');
   if (layers > 0) throw unsupported(file, 'texture arrays');
   if (faceCount !== 1 && faceCount !== 6) throw corrupt(file, `faceCount ${faceCount}`);
-  if (scheme !== 0 && scheme !== 3) throw unsupported(file, `supercompression scheme ${scheme}`);
+  if (scheme !== 0 && scheme !== 2 && scheme !== 3) throw unsupported(file, `supercompression scheme ${scheme}`);
   const height = Math.max(1, height0);
   if (width < 1 || width > limits.maxDimension || height > limits.maxDimension) throw new CodecError('LIMIT_EXCEEDED', file, `texture size ${width} x ${height} outside 1..${limits.maxDimension}`);
   if (width * height * faceCount > limits.maxPixels) throw new CodecError('LIMIT_EXCEEDED', file, `texture of ${width * height * faceCount} texels exceeds the limit of ${limits.maxPixels}`);
@@ -328,12 +335,13 @@ export function decodeKtx2(bytes: Uint8Array, options: Ktx2DecodeOptions = {}): 
     if (byteOffset + byteLength > bytes.length) throw truncated(file, `in level ${l}`);
     let raw = bytes.subarray(byteOffset, byteOffset + byteLength);
     if (scheme === 3) raw = inflateExactly(raw, expected, file, l);
+    else if (scheme === 2) raw = zstdDecompressExactly(raw, expected, file, `level ${l}`);
     else if (byteLength !== expected) throw corrupt(file, `level ${l} holds ${byteLength} bytes, expected ${expected}`);
     levels.push({ width: w, height: h, data: unpackTexels(format, raw), byteOffset, byteLength, uncompressedByteLength });
   }
   return {
     format, vkFormat, vkName: info.vkName, width, height, faceCount, channels: info.channels,
-    supercompression: scheme === 3 ? 'zlib' : 'none', levels, keyValues, dfd,
+    supercompression: scheme === 3 ? 'zlib' : scheme === 2 ? 'zstd' : 'none', levels, keyValues, dfd,
   };
 }
 

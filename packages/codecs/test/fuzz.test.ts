@@ -9,7 +9,9 @@
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { CodecError, decodeImage, decodeKtx2, encodeExr, encodeHdr, encodeKtx2, encodePfm, encodePng, type DecodeLimits } from '@lightkiln/codecs';
+import { CodecError, decodeImage, decodeKtx2, encodeExr, encodeHdr, encodeKtx2, encodePfm, encodePng, initZstd, type DecodeLimits } from '@lightkiln/codecs';
+
+await initZstd();
 
 const RUNS = Number(process.env.FUZZ_RUNS ?? 2000);
 const SEED = process.env.FUZZ_SEED === undefined ? undefined : Number(process.env.FUZZ_SEED);
@@ -29,6 +31,7 @@ const valid: Record<string, Uint8Array> = {
   'exr-zip': encodeExr({ width: 12, height: 8, channels: 4, data: pixels(12, 8, 4) }, { compression: 'zip' }),
   png: encodePng({ width: 12, height: 8, channels: 4, data: rgba8 }),
   'ktx2-zlib': encodeKtx2({ format: 'rgba16f', width: 4, height: 4, faceCount: 6, levels: [pixels(4, 4 * 6, 4), pixels(2, 2 * 6, 4)], supercompression: 'zlib' }),
+  'ktx2-zstd': encodeKtx2({ format: 'rgba16f', width: 4, height: 4, faceCount: 6, levels: [pixels(4, 4 * 6, 4), pixels(2, 2 * 6, 4)], supercompression: 'zstd' }),
   ktx2: encodeKtx2({ format: 'rgba32f', width: 4, height: 4, faceCount: 6, levels: [pixels(4, 4 * 6, 4)] }),
 };
 

@@ -40,7 +40,7 @@ function toFormatChannels(rgb: Float32Array, format: CubeFormat): { data: Float3
 }
 
 /** A cube (all levels) as KTX 2.0, and how many texels were clamped to the format's range. */
-export function encodeCubeKtx2(levels: readonly Float32Array[], size: number, format: CubeFormat, supercompression: 'none' | 'zlib', keyValues: Record<string, string>): { bytes: Uint8Array; clamped: number } {
+export function encodeCubeKtx2(levels: readonly Float32Array[], size: number, format: CubeFormat, supercompression: 'none' | 'zlib' | 'zstd', keyValues: Record<string, string>): { bytes: Uint8Array; clamped: number } {
   const converted = levels.map((l) => toFormatChannels(l, format));
   const bytes = encodeKtx2({
     format: format as Ktx2Format,
@@ -55,7 +55,7 @@ export function encodeCubeKtx2(levels: readonly Float32Array[], size: number, fo
   return { bytes, clamped: converted.reduce((n, c) => n + c.clamped, 0) };
 }
 
-export function encodeDfgKtx2(table: DfgTable, supercompression: 'none' | 'zlib', samples: number): Uint8Array {
+export function encodeDfgKtx2(table: DfgTable, supercompression: 'none' | 'zlib' | 'zstd', samples: number): Uint8Array {
   return encodeKtx2({
     format: table.channels === 2 ? 'rg16f' : 'rgba16f',
     width: table.size,

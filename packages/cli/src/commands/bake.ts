@@ -10,7 +10,7 @@ import { createProgress } from '../progress.js';
 const SPEC = {
   out: { type: 'string' }, size: { type: 'number' }, levels: { type: 'number' }, samples: { type: 'string' },
   rotate: { type: 'number' }, format: { type: 'string' }, 'irradiance-size': { type: 'number' }, filtered: { type: 'boolean' },
-  zlib: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' },
+  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' },
   threads: { type: 'number' }, cache: { type: 'boolean' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' },
   help: { type: 'boolean' },
 } as const;
@@ -48,7 +48,9 @@ function flagRecipe(flags: Record<string, unknown>): Partial<Recipe> {
   }
   const output: Record<string, unknown> = {};
   if (flags.format !== undefined) output.specularFormat = flags.format;
+  if (flags.zlib === true && flags.zstd === true) throw new UsageError('bake', '--zlib and --zstd exclude each other');
   if (flags.zlib === true) output.supercompression = 'zlib';
+  if (flags.zstd === true) output.supercompression = 'zstd';
   if (flags.views === true) output.views = ['hdr'];
   if (flags.preview === true) output.preview = true;
   return {

@@ -8,7 +8,7 @@ import { bakerOptions } from './bake.js';
 
 const SPEC = {
   out: { type: 'string' }, size: { type: 'number' }, samples: { type: 'number' }, multiscatter: { type: 'boolean' }, cloth: { type: 'boolean' },
-  zlib: { type: 'boolean' }, threads: { type: 'number' }, cache: { type: 'boolean' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' },
+  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, threads: { type: 'number' }, cache: { type: 'boolean' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' },
   quiet: { type: 'boolean' }, help: { type: 'boolean' },
 } as const;
 
@@ -27,7 +27,7 @@ export async function lutCommand(argv: readonly string[], ctx: CommandContext): 
       ...(flags.samples !== undefined ? { samples: flags.samples as number } : {}),
       multiscatter: flags.multiscatter === true,
       cloth: flags.cloth === true,
-      supercompression: flags.zlib === true ? 'zlib' : 'none',
+      supercompression: flags.zstd === true ? 'zstd' : flags.zlib === true ? 'zlib' : 'none',
     }, { signal: ctx.signal, onProgress: progress.onProgress });
     writeFilesAtomic([{ path: out, bytes: lut.bytes }]);
     progress.done();
