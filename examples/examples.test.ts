@@ -10,6 +10,7 @@ import { closeSharedPools } from '@lightkiln/bake';
 import { cook } from './asset-cooker/cook.mjs';
 import { bakeWithTimeout } from './progress-and-timeout/bake-with-timeout.mjs';
 import { compareBudgets } from './compare-budgets/compare.mjs';
+import { hasTool } from '../test/helpers/tools.js';
 
 const here = fileURLToPath(new URL('.', import.meta.url));
 const work = mkdtempSync(join(tmpdir(), 'lightkiln-examples-'));
@@ -75,4 +76,35 @@ describe('examples', () => {
     expect(mean(rows[1].relativeRmse)).toBeLessThan(mean(rows[0].relativeRmse));
     expect(rows[2].relativeRmse.length).toBe(rows[0].relativeRmse.length);
   });
+});
+
+describe('ninja-cooker (Debian ninja-build)', () => {
+  it.runIf(hasTool('ninja'))('bakes on the first run, does nothing on the second, reruns only a touched probe (artifacts unchanged, mtimes kept), then nothing', async () => {
+    const { mkdirSync, readFileSync, statSync, utimesSync, writeFileSync } = await import('node:fs');
+    const dir = join(work, 'ninja');
+    mkdirSync(join(dir, 'probes'), { recursive: true });
+    const cli = join(here, '../packages/cli/dist/main.js');
+    writeFileSync(join(dir, 'build.ninja'), readFileSync(join(here, 'ninja-cooker/build.ninja'), 'utf8').replace(/^lightkiln = .*$/m, `lightkiln = "${process.execPath}" "${cli}"`));
+    copyFileSync(sky, join(dir, 'probes/sunset.hdr'));
+    expect(spawnSync(process.execPath, [join(here, 'observatory-dusk/make-sky.mjs'), join(dir, 'probes/noon.hdr'), '128']).status).toBe(0);
+    const ninja = (): string => {
+      const r = spawnSync('ninja', [], { cwd: dir, encoding: 'utf8' });
+      expect(r.status, r.stderr + r.stdout).toBe(0);
+      return r.stdout;
+    };
+    const first = ninja();
+    expect(first).toContain('cook sunset');
+    expect(first).toContain('cook noon');
+    expect(ninja()).toContain('no work to do');
+    const spec = join(dir, 'cooked/noon.specular.ktx2');
+    const before = statSync(spec).mtimeMs;
+    // Touch the input (a later mtime, same bytes): only that probe reruns, and restat sees unchanged files.
+    const later = new Date(Date.now() + 5000);
+    utimesSync(join(dir, 'probes/noon.hdr'), later, later);
+    const third = ninja();
+    expect(third).toContain('cook noon');
+    expect(third).not.toContain('cook sunset');
+    expect(statSync(spec).mtimeMs).toBe(before);
+    expect(ninja()).toContain('no work to do');
+  }, 120_000);
 });

@@ -141,6 +141,32 @@ describe('lightkiln bake', () => {
     expect(readFileSync(victim, 'utf8')).toBe('keep');
   });
 
+  it('writes a Make-syntax depfile: every artifact as a target, every file read as a prerequisite, escaped (GNU Make rules)', () => {
+    const dir = join(work, 'dep $dir #1');
+    mkdirSync(dir, { recursive: true });
+    const input = join(dir, 'sky one.hdr');
+    writeFileSync(input, readFileSync(skyPath));
+    const recipeFile = join(dir, 'recipe.json');
+    writeFileSync(recipeFile, JSON.stringify({ rotationDeg: 10 }));
+    const depfile = join(work, 'single.d');
+    const out = join(dir, 'out');
+    expect(run(['bake', input, '--out', out, '--recipe', recipeFile, ...small, '--depfile', depfile]).status).toBe(0);
+    const text = readFileSync(depfile, 'utf8');
+    const esc = (p: string): string => p.replace(/\$/g, '$$$$').replace(/([ #])/g, '\\$1');
+    const [targets, prereqs] = text.split(/:\s/);
+    for (const name of ['sky_one.specular.ktx2', 'sky_one.irradiance.ktx2', 'sky_one.dfg.ktx2', 'sky_one.probe.json']) expect(targets).toContain(esc(join(out, name)));
+    expect(prereqs).toContain(esc(input));
+    expect(prereqs).toContain(esc(recipeFile));
+    // A batch: its file and every entry's input are prerequisites.
+    const batch = join(dir, 'batch.json');
+    writeFileSync(batch, JSON.stringify([{ input: { path: 'sky one.hdr' }, name: 'p1' }, { input: { path: skyPath }, name: 'p2' }]));
+    expect(run(['bake', '--batch', batch, '--out', out, ...small, '--depfile', depfile]).status).toBe(0);
+    const batchText = readFileSync(depfile, 'utf8');
+    expect(batchText).toContain(esc(batch));
+    expect(batchText).toContain(esc(skyPath));
+    expect(batchText).toContain(esc(join(out, 'p2.probe.json')));
+  });
+
   it('prints a JSON error document on stdout for a usage error with --json', () => {
     const r = run(['bake', skyPath, '--bogus', '--json']);
     expect(r.status).toBe(2);

@@ -585,8 +585,25 @@ function checkOutputFolder(outDir: string, probe: string): void {
 }
 
 /**
+ * True when the manifest at `path` differs from `bytes` at most in the fields that change on every run
+ * (timings and cache statistics): an unchanged rebake then leaves it alone, as it leaves the other files.
+ */
+function sameManifest(path: string, bytes: Uint8Array): boolean {
+  try {
+    const strip = (text: string): string => {
+      const { timingsMs: _t, cache: _c, ...rest } = JSON.parse(text) as Record<string, unknown>;
+      return JSON.stringify(rest);
+    };
+    return strip(readFileSync(path, 'utf8')) === strip(new TextDecoder().decode(bytes));
+  } catch {
+    return false;
+  }
+}
+
+/**
  * Writes every artifact to a temp file first, then renames all of them; on failure removes the temps.
- * An artifact whose file already holds the same bytes is left alone (its mtime kept, for build systems).
+ * An artifact whose file already holds the same bytes (a manifest: the same but for timings and cache
+ * statistics) is left alone (its mtime kept, for build systems).
  * Stale temp files of killed runs in the folder are swept first.
  */
 function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): void {
@@ -602,7 +619,7 @@ function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): v
       if (!SAFE_NAME.test(a.name)) throw unsafePath(a.name, 'not a plain file name');
       const final = join(outDir, a.name);
       refuseSymlink(final);
-      if (sameContent(final, a.bytes)) continue;
+      if (sameContent(final, a.bytes) || (a.kind === 'manifest' && sameManifest(final, a.bytes))) continue;
       staged.push(stageFile(final, a.bytes));
     }
   } catch (error) {

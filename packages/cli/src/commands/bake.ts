@@ -2,7 +2,8 @@
 
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
-import { createBaker, LightkilnError, refuseSymlink, resolveRecipe, type BakerOptions, type Recipe } from '@lightkiln/bake';
+import { createBaker, LightkilnError, refuseSymlink, resolveRecipe, writeFilesAtomic, type BakerOptions, type Recipe } from '@lightkiln/bake';
+import { depfileText } from '../depfile.js';
 import { parseArgs, UsageError } from '../args.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, printJson, type CommandContext } from '../io.js';
 import { createProgress } from '../progress.js';
@@ -10,7 +11,7 @@ import { createProgress } from '../progress.js';
 const SPEC = {
   out: { type: 'string' }, size: { type: 'number' }, levels: { type: 'number' }, samples: { type: 'string' },
   rotate: { type: 'number' }, format: { type: 'string' }, 'irradiance-size': { type: 'number' }, filtered: { type: 'boolean' },
-  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' },
+  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' }, depfile: { type: 'string' },
   threads: { type: 'number' }, cache: { type: 'boolean' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' },
   help: { type: 'boolean' },
 } as const;
@@ -72,6 +73,12 @@ function merge(base: Record<string, unknown>, over: Record<string, unknown>): Re
     out[k] = typeof v === 'object' && v !== null && !Array.isArray(v) && typeof b === 'object' && b !== null && !Array.isArray(b) ? { ...b, ...v } : v;
   }
   return out;
+}
+
+/** The input files a recipe reads (path or six faces). */
+function inputPaths(recipe: Recipe): string[] {
+  const input = recipe.input as { path?: string; faces?: string[] } | undefined;
+  return [...(input?.path !== undefined ? [input.path] : []), ...(input?.faces ?? [])];
 }
 
 /**
@@ -176,6 +183,13 @@ export async function bakeCommand(argv: readonly string[], ctx: CommandContext):
   } finally {
     progress.done();
     await baker.close();
+  }
+  const depfile = flags.depfile as string | undefined;
+  if (depfile !== undefined) {
+    // Targets: every artifact of the probes that baked (paths as the bake wrote them, from --out as
+    // passed); prerequisites: every file read.
+    const read = [...(flags.recipe !== undefined ? [flags.recipe as string] : []), ...(flags.batch !== undefined ? [flags.batch as string] : []), ...recipes.flatMap(inputPaths)];
+    writeFilesAtomic([{ path: depfile, bytes: new TextEncoder().encode(depfileText(artifacts.map((a) => a.path), read)) }]);
   }
   if (ctx.json) printJson(ctx, { artifacts, probes: results, failed });
   else if (!ctx.quiet) for (const a of artifacts) ctx.stdout(`${a.kind.padEnd(10)} ${a.path}\n`);
