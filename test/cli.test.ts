@@ -167,6 +167,27 @@ describe('lightkiln bake', () => {
     expect(batchText).toContain(esc(join(out, 'p2.probe.json')));
   });
 
+  it('--events prints one JSON object per line: stages, cache hits and misses, artifacts written or kept', () => {
+    const out = join(work, 'out-events');
+    const cacheDir = join(work, 'cache-events');
+    const args = ['bake', skyPath, '--out', out, '--size', '16', '--samples', 'draft', '--cache-dir', cacheDir, '--events'];
+    const parse = (stderr: string): Record<string, unknown>[] => stderr.trim().split('\n').map((l) => JSON.parse(l) as Record<string, unknown>);
+    const first = run(args);
+    expect(first.status, first.stderr).toBe(0);
+    const e1 = parse(first.stderr);
+    expect(e1.every((e) => e.probe === 'sky' && typeof e.t === 'number')).toBe(true);
+    const stages = e1.filter((e) => e.type === 'stage');
+    for (const s of new Set(stages.map((e) => e.stage))) {
+      expect(stages.filter((e) => e.stage === s && e.state === 'started').length, String(s)).toBe(stages.filter((e) => e.stage === s && e.state === 'finished').length);
+    }
+    expect(e1.find((e) => e.type === 'cache' && e.entry === 'specular file')!.hit).toBe(false);
+    expect(e1.filter((e) => e.type === 'artifact').every((e) => e.written === true)).toBe(true);
+    const second = parse(run(args).stderr);
+    expect(second.find((e) => e.type === 'cache' && e.entry === 'specular file')!.hit).toBe(true);
+    expect(second.some((e) => e.type === 'stage')).toBe(false);
+    expect(second.filter((e) => e.type === 'artifact').map((e) => e.written)).toEqual([false, false, false, false]);
+  });
+
   it('prints a JSON error document on stdout for a usage error with --json', () => {
     const r = run(['bake', skyPath, '--bogus', '--json']);
     expect(r.status).toBe(2);

@@ -21,6 +21,7 @@ import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
 import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
 import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
 import { buildPyramid, pyramidLayout, type Pyramid } from './stages/pyramid.js';
+import type { BakeEvent } from './events.js';
 import { commitFiles, discardFiles, refuseSymlink, sameContent, stageFile, sweepStaleTempFiles, writeError, type StagedFile } from './files.js';
 import { nodeGeometryOnPool } from './stages/node-geometry.js';
 import { decodeSource, type InputFile, type SanitizeCounts, type SourceImage } from './stages/source.js';
@@ -55,6 +56,8 @@ export interface BakeRunOptions {
   readonly outDir?: string;
   readonly signal?: AbortSignal;
   readonly onProgress?: (progress: BakeProgress) => void;
+  /** Structured events: stages started and finished, progress, cache hits and misses, artifacts (events.ts). */
+  readonly onEvent?: (event: BakeEvent) => void;
 }
 
 export type ArtifactKind = 'specular' | 'irradiance' | 'lut' | 'view' | 'preview' | 'manifest';
@@ -162,12 +165,18 @@ class BakeRun {
     if (this.ctx.signal?.aborted) throw aborted(this.ctx.signal.reason);
   }
 
+  /** Structured events (BakeRunOptions.onEvent), already guarded by the caller. */
+  emit: (event: BakeEvent) => void = () => undefined;
+
   async #timed<T>(stage: string, fn: () => Promise<T>): Promise<T> {
     const t0 = performance.now();
+    this.emit({ type: 'stage', stage, state: 'started' });
     try {
       return await fn();
     } finally {
-      this.timings[stage] = (this.timings[stage] ?? 0) + (performance.now() - t0);
+      const ms = performance.now() - t0;
+      this.timings[stage] = (this.timings[stage] ?? 0) + ms;
+      this.emit({ type: 'stage', stage, state: 'finished', ms: Math.round(ms * 10) / 10 });
     }
   }
 
@@ -428,6 +437,10 @@ export class Baker {
       progressFailure = guarded.failure;
       const ctx = guarded.ctx;
       const run = new BakeRun(recipe, inputs, keys, cache, ctx);
+      const emit = guarded.emit;
+      run.emit = emit;
+      const labels = keyLabels(keys);
+      cache.onAccess = (key, hit) => emit({ type: 'cache', entry: labels.get(key) ?? key, hit });
       const r = recipe;
       const roughnessList = JSON.stringify(r.roughness);
       // The three files run side by side: the DFG table and the irradiance do not wait for the specular
@@ -521,7 +534,8 @@ export class Baker {
       };
       const manifestBytes = new TextEncoder().encode(`${JSON.stringify(manifest, null, 2)}\n`);
       add('manifest', `${r.name}.probe.json`, 'json', { bytes: manifestBytes, fromCache: false });
-      if (outDir !== undefined) writeAtomically(outDir, artifacts);
+      const kept = outDir !== undefined ? writeAtomically(outDir, artifacts) : new Set<string>();
+      for (const a of artifacts) emit({ type: 'artifact', kind: a.kind, name: a.name, path: a.path, sha256: a.sha256, bytes: a.bytes.length, written: outDir !== undefined && !kept.has(a.name), fromCache: a.fromCache });
       if (this.#store !== null && this.#options.cacheMaxBytes !== undefined) await pruneStore(this.#store, this.#options.cacheMaxBytes);
       return { artifacts, manifest, cache: { ...cache.stats } };
     } catch (error) {
@@ -606,7 +620,7 @@ function sameManifest(path: string, bytes: Uint8Array): boolean {
  * statistics) is left alone (its mtime kept, for build systems).
  * Stale temp files of killed runs in the folder are swept first.
  */
-function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): void {
+function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): Set<string> {
   try {
     mkdirSync(outDir, { recursive: true });
   } catch (error) {
@@ -614,12 +628,16 @@ function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): v
   }
   sweepStaleTempFiles(outDir);
   const staged: StagedFile[] = [];
+  const kept = new Set<string>();
   try {
     for (const a of artifacts) {
       if (!SAFE_NAME.test(a.name)) throw unsafePath(a.name, 'not a plain file name');
       const final = join(outDir, a.name);
       refuseSymlink(final);
-      if (sameContent(final, a.bytes) || (a.kind === 'manifest' && sameManifest(final, a.bytes))) continue;
+      if (sameContent(final, a.bytes) || (a.kind === 'manifest' && sameManifest(final, a.bytes))) {
+        kept.add(a.name);
+        continue;
+      }
       staged.push(stageFile(final, a.bytes));
     }
   } catch (error) {
@@ -627,6 +645,18 @@ function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): v
     throw error;
   }
   commitFiles(staged);
+  return kept;
+}
+
+/** Event names of the cache keys of a bake. */
+function keyLabels(keys: Keys): Map<string, string> {
+  const m = new Map<string, string>([
+    [keys.source, 'source'], [keys.pyramid, 'pyramid'], [keys.sh, 'sh'], [keys.irradianceCube, 'irradiance cube'], [keys.dfg, 'dfg'],
+    [keys.specularFile, 'specular file'], [keys.irradianceFile, 'irradiance file'], [keys.lutFile, 'lut file'], [keys.preview, 'preview'],
+  ]);
+  keys.levels.forEach((k, i) => m.set(k, `level ${i}`));
+  for (const v of keys.views) m.set(v.key, `view ${v.name}`);
+  return m;
 }
 
 function isStore(value: unknown): value is CacheStore {

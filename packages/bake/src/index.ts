@@ -12,6 +12,7 @@ export type { CacheStats } from './cache/entry.js';
 export type { Manifest, ManifestLevel, ManifestArtifact } from './manifest.js';
 export { MANIFEST_SCHEMA_VERSION, TOOL_NAME, TOOL_VERSION } from './manifest.js';
 export type { BakeProgress } from './stages/context.js';
+export type { BakeEvent } from './events.js';
 export { cubeCross } from './stages/encode.js';
 export { closeSharedPools, getSharedPool, WorkerPool } from '@lightkiln/pool';
 export { inspectBytes } from './inspect.js';

@@ -32,6 +32,7 @@ run "lightkiln <command> --help" for a command's options`,
   --recipe FILE        JSON recipe fields applied to every input (flags win)
   --batch FILE         JSON list of recipes (input paths relative to the file)
   --depfile FILE       write a Make-syntax depfile: artifacts <- inputs, recipe, batch file
+  --events             JSON lines on stderr: stage, progress, cache, artifact events
   --threads N          worker threads (0 = inline)                             default all cores
   --no-cache           do not read or write the cache
   --cache-dir DIR      cache folder                                            default .lightkiln-cache

@@ -10,11 +10,14 @@
  * [0, acos(c0)] (the integrand is even in phi) and the phi-integral is smooth inside. Over theta_h, panels
  * are geometric in 1 - u (uniform in log tan theta_h, where D spreads), with breaks where c0 = -1 and c0 = 1
  * (past the latter no light direction is above the horizon). 8-point Gauss-Legendre on every panel
- * (Abramowitz & Stegun 1964, table 25.4), 16 points over phi.
+ * (Abramowitz & Stegun 1964, table 25.4), 8 points over phi.
  */
 
 const GL_X = [-0.9602898564975363, -0.7966664774136267, -0.525532409916329, -0.1834346424956498, 0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363];
 const GL_W = [0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.362683783378362, 0.362683783378362, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763];
+
+/** Gauss-Legendre panels over the lit azimuth range (8 points each). */
+const PHI_PANELS = 1;
 
 /** cos phi bound of the horizon for tan^2 theta_h = t2 (see the module comment); may lie outside [-1, 1]. */
 function horizonCos(mu: number, sinV: number, t2: number): number {
@@ -51,9 +54,9 @@ function panel(acc: Float64Array, mu: number, sinV: number, a2: number, lambdaV:
     const phiMax = Math.acos(c0);
     let sa = 0;
     let sb = 0;
-    for (let half = 0; half < 2; half++) {
-      const p0 = half * 0.5 * phiMax;
-      const p1 = p0 + 0.5 * phiMax;
+    for (let half = 0; half < PHI_PANELS; half++) {
+      const p0 = (half * phiMax) / PHI_PANELS;
+      const p1 = p0 + phiMax / PHI_PANELS;
       for (let j = 0; j < 8; j++) {
         const phi = 0.5 * (p0 + p1) + 0.5 * (p1 - p0) * GL_X[j]!;
         const vDotH = sinV * sinH * Math.cos(phi) + mu * cosH;

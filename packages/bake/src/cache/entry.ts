@@ -83,6 +83,8 @@ export interface CacheStats {
 export class EntryCache {
   readonly store: CacheStore | null;
   readonly stats: CacheStats = { hits: 0, misses: 0, corrupt: 0, writes: 0 };
+  /** Called on every lookup with the key and whether it hit (events of the bake). */
+  onAccess: ((key: string, hit: boolean) => void) | undefined;
 
   constructor(store: CacheStore | null) {
     this.store = store;
@@ -93,10 +95,14 @@ export class EntryCache {
   }
 
   async get(key: string): Promise<CacheEntry | null> {
-    if (this.store === null) return null;
+    if (this.store === null) {
+      this.onAccess?.(key, false);
+      return null;
+    }
     const bytes = await this.store.get(key);
     if (bytes === undefined) {
       this.stats.misses++;
+      this.onAccess?.(key, false);
       return null;
     }
     const entry = decodeEntry(bytes, key);
@@ -104,9 +110,11 @@ export class EntryCache {
       this.stats.corrupt++;
       this.stats.misses++;
       await this.store.delete(key);
+      this.onAccess?.(key, false);
       return null;
     }
     this.stats.hits++;
+    this.onAccess?.(key, true);
     return entry;
   }
 

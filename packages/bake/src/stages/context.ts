@@ -2,6 +2,7 @@
 
 import { builtModuleUrl, type KernelRef, type WorkerPool } from '@lightkiln/pool';
 import { invalidOption, LightkilnError } from '../errors.js';
+import type { BakeEvent } from '../events.js';
 
 export interface BakeProgress {
   /** Stage name: "resample", "pyramid", "specular", "irradiance", "dfg", "encode". */
@@ -41,29 +42,41 @@ export function jobOptions(ctx: StageContext, stage: string): { signal?: AbortSi
 }
 
 /**
- * A stage context for one bake call, with the caller's progress callback guarded: a callback that throws
- * stops the bake (its tiles are aborted) instead of escaping into a worker's promise chain, and the bake
- * then rejects with the callback's error (`failure()`). A non-function onProgress is an option error.
+ * A stage context for one bake call, with the caller's callbacks guarded: a progress or event callback
+ * that throws stops the bake (its tiles are aborted) instead of escaping into a worker's promise chain,
+ * and the bake then rejects with the callback's error (`failure()`). A non-function callback is an
+ * option error. `emit` delivers structured events (progress included).
  */
-export function guardedContext(pool: WorkerPool, options: { readonly signal?: AbortSignal | undefined; readonly onProgress?: unknown }, targetTileCost: number | undefined): { ctx: StageContext; failure: () => unknown } {
+export function guardedContext(pool: WorkerPool, options: { readonly signal?: AbortSignal | undefined; readonly onProgress?: unknown; readonly onEvent?: unknown }, targetTileCost: number | undefined): { ctx: StageContext; emit: (event: BakeEvent) => void; failure: () => unknown } {
   const user = options.onProgress;
+  const onEvent = options.onEvent;
   if (user !== undefined && typeof user !== 'function') throw invalidOption('onProgress', 'must be a function', typeof user);
+  if (onEvent !== undefined && typeof onEvent !== 'function') throw invalidOption('onEvent', 'must be a function', typeof onEvent);
   if (options.signal !== undefined && !(options.signal instanceof AbortSignal)) throw invalidOption('signal', 'must be an AbortSignal', typeof options.signal);
-  if (user === undefined) return { ctx: { pool, signal: options.signal, onProgress: undefined, targetTileCost }, failure: () => undefined };
+  if (user === undefined && onEvent === undefined) return { ctx: { pool, signal: options.signal, onProgress: undefined, targetTileCost }, emit: () => undefined, failure: () => undefined };
   const controller = new AbortController();
   const signal = options.signal === undefined ? controller.signal : AbortSignal.any([options.signal, controller.signal]);
   let thrown: unknown;
   let failed = false;
-  const onProgress = (progress: BakeProgress): void => {
+  let which = '';
+  const guard = (name: string, fn: () => void): void => {
     if (failed) return;
     try {
-      (user as (p: BakeProgress) => void)(progress);
+      fn();
     } catch (error) {
       failed = true;
       thrown = error;
+      which = name;
       controller.abort(error);
     }
   };
-  const failure = (): unknown => (failed ? new LightkilnError('BAKE_FAILED', `the onProgress callback threw: ${thrown instanceof Error ? thrown.message : String(thrown)}`, { cause: thrown }) : undefined);
-  return { ctx: { pool, signal, onProgress, targetTileCost }, failure };
+  const emit = (event: BakeEvent): void => {
+    if (onEvent !== undefined) guard('onEvent', () => (onEvent as (e: BakeEvent) => void)(event));
+  };
+  const onProgress = (progress: BakeProgress): void => {
+    if (user !== undefined) guard('onProgress', () => (user as (p: BakeProgress) => void)(progress));
+    emit({ type: 'progress', stage: progress.stage, done: progress.done, total: progress.total });
+  };
+  const failure = (): unknown => (failed ? new LightkilnError('BAKE_FAILED', `the ${which} callback threw: ${thrown instanceof Error ? thrown.message : String(thrown)}`, { cause: thrown }) : undefined);
+  return { ctx: { pool, signal, onProgress, targetTileCost }, emit, failure };
 }

@@ -2,7 +2,7 @@
 
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
-import { createBaker, LightkilnError, refuseSymlink, resolveRecipe, writeFilesAtomic, type BakerOptions, type Recipe } from '@lightkiln/bake';
+import { createBaker, LightkilnError, refuseSymlink, resolveRecipe, writeFilesAtomic, type BakeEvent, type BakerOptions, type Recipe } from '@lightkiln/bake';
 import { depfileText } from '../depfile.js';
 import { parseArgs, UsageError } from '../args.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, printJson, type CommandContext } from '../io.js';
@@ -11,7 +11,7 @@ import { createProgress } from '../progress.js';
 const SPEC = {
   out: { type: 'string' }, size: { type: 'number' }, levels: { type: 'number' }, samples: { type: 'string' },
   rotate: { type: 'number' }, format: { type: 'string' }, 'irradiance-size': { type: 'number' }, filtered: { type: 'boolean' },
-  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' }, depfile: { type: 'string' },
+  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' }, depfile: { type: 'string' }, events: { type: 'boolean' },
   threads: { type: 'number' }, cache: { type: 'boolean' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' },
   help: { type: 'boolean' },
 } as const;
@@ -155,7 +155,10 @@ export async function bakeCommand(argv: readonly string[], ctx: CommandContext):
   }
   preflight(recipes, out, flags.batch as string | undefined);
   const baker = createBaker(bakerOptions(flags));
-  const progress = createProgress({ quiet: ctx.quiet, label: 'lightkiln' });
+  // --events: one JSON object per line on stderr instead of the progress display (schema: bake's events.ts).
+  const events = flags.events === true;
+  const eventsStart = performance.now();
+  const progress = createProgress({ quiet: ctx.quiet || events, label: 'lightkiln' });
   const results: Record<string, unknown>[] = [];
   const artifacts: { kind: string; path: string; sha256: string; probe: string }[] = [];
   let failed = 0;
@@ -166,7 +169,9 @@ export async function bakeCommand(argv: readonly string[], ctx: CommandContext):
       if (ctx.signal.aborted) break;
       try {
         const started = performance.now();
-        const result = await baker.bake(recipe, { outDir: out, signal: ctx.signal, onProgress: progress.onProgress });
+        const probe = resolveRecipe(recipe).name;
+        const onEvent = events ? (event: BakeEvent): void => ctx.stderr(`${JSON.stringify({ t: Math.round(performance.now() - eventsStart), probe, ...event })}\n`) : undefined;
+        const result = await baker.bake(recipe, { outDir: out, signal: ctx.signal, onProgress: progress.onProgress, ...(onEvent !== undefined ? { onEvent } : {}) });
         for (const a of result.artifacts) artifacts.push({ kind: a.kind, path: a.path!, sha256: a.sha256, probe: result.manifest.probe });
         const ms = performance.now() - started;
         results.push({ input: label, probe: result.manifest.probe, ok: true, ms: Math.round(ms), cache: result.cache });
