@@ -1,5 +1,5 @@
 /**
- * End-to-end tests of the lightkiln command through a child process: the contract of DESIGN.md (one JSON
+ * End-to-end tests of the lightkiln command through a child process: the CLI contract of the README (one JSON
  * document on stdout with --json, progress on stderr, exit codes 0 / 1 / 2), batches, inspect on every
  * format, the cache command, the demo scene and Ctrl-C.
  */

@@ -8,7 +8,7 @@ export interface CommandContext {
   readonly signal: AbortSignal;
 }
 
-/** Exit codes of the CLI contract (DESIGN.md). */
+/** Exit codes of the CLI contract (README, Conventions). */
 export const EXIT_OK = 0;
 export const EXIT_FAILED = 1;
 export const EXIT_USAGE = 2;

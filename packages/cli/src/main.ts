@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 /** The `lightkiln` command: dispatch, exit codes (0 ok, 1 bake failed, 2 bad usage or input), Ctrl-C. */
 
-import { closeSharedPools, LightkilnError, removeLiveTempFiles } from '@lightkiln/bake';
+import { closeSharedPools, LightkilnError, removeLiveTempFiles, TOOL_NAME, TOOL_VERSION } from '@lightkiln/bake';
 import { UsageError } from './args.js';
 import { bakeCommand } from './commands/bake.js';
 import { cacheCommand } from './commands/cache.js';
@@ -49,7 +49,7 @@ export async function main(argv: readonly string[]): Promise<number> {
       return command === undefined ? EXIT_USAGE : EXIT_OK;
     }
     if (command === '--version') {
-      process.stdout.write('lightkiln 0.1.0\n');
+      process.stdout.write(`${TOOL_NAME} ${TOOL_VERSION}\n`);
       return EXIT_OK;
     }
     const run = COMMANDS[command];

@@ -1,6 +1,6 @@
 /**
  * Radiance RGBE (.hdr) files (Ward 1991, "Real Pixels", Graphics Gems II; Radiance "File Formats" doc).
- * Decoding: value = m * 2^(e - 136), e = 0 is black (the common reader convention, DESIGN.md); all eight
+ * Decoding: value = m * 2^(e - 136), e = 0 is black (the common reader convention; README, Conventions); all eight
  * resolution-string orientations are read into top-down, left-to-right order; EXPOSURE is undone.
  * Encoding: round to nearest, new-style run-length scanlines where 8 <= width <= 32767, flat otherwise.
  */
@@ -197,7 +197,7 @@ function readScanline(bytes: Uint8Array, start: number, scan: Uint8Array, count:
 }
 
 /**
- * RGBE bytes of one linear colour, rounded to nearest (DESIGN.md): with E = e + 128 where 2^(e-1) <= max < 2^e,
+ * RGBE bytes of one linear colour, rounded to nearest (README, Conventions): with E = e + 128 where 2^(e-1) <= max < 2^e,
  * channel = round(c / 2^(e - 8)); a max that rounds to 256 moves to the next exponent. Writes out[o..o+3].
  */
 export function encodeRgbePixel(out: Uint8Array, o: number, r: number, g: number, b: number): void {

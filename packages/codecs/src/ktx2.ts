@@ -30,7 +30,7 @@ const F_S = 0xc0;
 const FLOAT_ONE = 0x3f800000;
 const FLOAT_MINUS_ONE = 0xbf800000;
 
-// Vulkan format enumerants and DFD samples (REFERENCES.md sec. 11; Khronos DF spec 1.3 sec. 5.6).
+// Vulkan format enumerants and DFD samples (Khronos Data Format specification 1.3, sec. 5.6).
 const FORMATS: Readonly<Record<Ktx2Format, FormatInfo>> = {
   rgba16f: {
     vkFormat: 97, vkName: 'VK_FORMAT_R16G16B16A16_SFLOAT', bytesPerTexel: 8, typeSize: 2, channels: 4,

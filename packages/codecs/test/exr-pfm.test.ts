@@ -15,7 +15,7 @@ function picture(width: number, height: number, channels: number): FloatImage {
 
 const halfRound = (v: number): number => binary16ToFloat32(float32ToBinary16(v));
 
-describe('OpenEXR scanline files ("OpenEXR File Layout", ASWF; REFERENCES.md sec. 13)', () => {
+describe('OpenEXR scanline files ("OpenEXR File Layout", ASWF)', () => {
   const cases: [ExrCompression, 'half' | 'float', number][] = [];
   for (const c of ['none', 'zips', 'zip'] as const) for (const t of ['half', 'float'] as const) for (const ch of [3, 4]) cases.push([c, t, ch]);
 

@@ -35,7 +35,7 @@ function flatFile(resolution: string, pixels: number[][], extraHeader = ''): Uin
   return out;
 }
 
-describe('RGBE pixels (Ward 1991, "Real Pixels"; REFERENCES.md sec. 12)', () => {
+describe('RGBE pixels (Ward 1991, "Real Pixels")', () => {
   it('encodes the reference colours, rounding to nearest', () => {
     expect(rgbe(1, 1, 1)).toEqual([128, 128, 128, 129]);
     expect(rgbe(1000, 1, 0.001)).toEqual([250, 0, 0, 138]);
@@ -45,7 +45,7 @@ describe('RGBE pixels (Ward 1991, "Real Pixels"; REFERENCES.md sec. 12)', () => 
     expect(rgbe(255.9, 0, 0)).toEqual([128, 0, 0, 137]); // rounds up into the next exponent
   });
 
-  it('decodes m * 2^(e - 136), e = 0 black (DESIGN.md convention)', () => {
+  it('decodes m * 2^(e - 136), e = 0 black (README, Conventions)', () => {
     const image = decodeHdr(flatFile('-Y 1 +X 3', [[128, 128, 128, 129], [250, 0, 0, 138], [7, 7, 7, 0]]));
     expect([...image.data]).toEqual([1, 1, 1, 1000, 0, 0, 0, 0, 0]);
   });
@@ -65,7 +65,7 @@ describe('RGBE pixels (Ward 1991, "Real Pixels"; REFERENCES.md sec. 12)', () => 
     }
   });
 
-  it('compresses runs with new-style RLE (REFERENCES.md sec. 12)', () => {
+  it('compresses runs with new-style RLE (published check values)', () => {
     const flat: FloatImage = { width: 256, height: 4, channels: 3, data: new Float32Array(256 * 4 * 3).fill(0.5) };
     const bytes = encodeHdr(flat);
     expect(bytes.length).toBeLessThan(200);

@@ -1,5 +1,5 @@
 /**
- * Cube-map geometry (DESIGN.md): faces +X, -X, +Y, -Y, +Z, -Z; s, t in [0, 1] from the OpenGL 4.6 core /
+ * Cube-map geometry (README, Conventions): faces +X, -X, +Y, -Y, +Z, -Z; s, t in [0, 1] from the OpenGL 4.6 core /
  * Vulkan "Cube Map Texture Selection" table; faceU = 2s - 1, faceV = 2t - 1; row 0 of a face is t = 0.
  */
 
@@ -92,7 +92,7 @@ export function directionToCubeFace(out: Float64Array, o: number, x: number, y: 
 
 /**
  * Antiderivative of the face's solid-angle element 1 / (1 + u^2 + v^2)^(3/2) du dv on the unit-distance
- * plane: F(u, v) = atan2(u v, sqrt(u^2 + v^2 + 1)) (derivation ours; REFERENCES.md sec. 9).
+ * plane: F(u, v) = atan2(u v, sqrt(u^2 + v^2 + 1)) (derivation ours).
  */
 export function cubeAreaElementIntegral(faceU: number, faceV: number): number {
   return Math.atan2(faceU * faceV, Math.sqrt(faceU * faceU + faceV * faceV + 1));

@@ -1,5 +1,5 @@
 /**
- * Equirectangular (latitude-longitude) geometry (DESIGN.md): u = 0.5 + atan2(x, -z) / (2 pi),
+ * Equirectangular (latitude-longitude) geometry (README, Conventions): u = 0.5 + atan2(x, -z) / (2 pi),
  * v = acos(y) / pi, row 0 at the top (+Y), the image centre looking towards -Z, u = 0.75 towards +X.
  */
 

@@ -1,5 +1,5 @@
 /**
- * Real spherical harmonics up to band 2 (SH9) in the order and signs of DESIGN.md (no Condon-Shortley
+ * Real spherical harmonics up to band 2 (SH9) in the order and signs of the README's Conventions (no Condon-Shortley
  * phase), evaluated on (x, y, z) as written. Coefficient arrays are RGB-interleaved: coeffs[3 k + c].
  */
 
@@ -18,7 +18,7 @@ export const SH_LAMBERT_BAND: Float64Array = new Float64Array([PI, (2 * PI) / 3,
 export const SH9_BAND_OF: Uint8Array = new Uint8Array([0, 1, 1, 1, 2, 2, 2, 2, 2]);
 export const SH9_COUNT = 9;
 
-/** The nine basis values Y_lm(x, y, z) in DESIGN.md order, written to out[o..o+8]. */
+/** The nine basis values Y_lm(x, y, z) in the README's order, written to out[o..o+8]. */
 export function evalSh9Basis(out: Float64Array, o: number, x: number, y: number, z: number): void {
   out[o] = SH_Y00;
   out[o + 1] = SH_Y1 * y;

@@ -8,7 +8,7 @@ import { integrate2d } from '../../../test/helpers/quadrature.js';
 const FOUR_PI = 4 * Math.PI;
 
 describe('cube face selection (Vulkan spec, Cube Map Face Selection; OpenGL 4.6 core sec. 8.13)', () => {
-  it('selects the REFERENCES.md sec. 9 examples', () => {
+  it('selects the examples of the Vulkan selection table', () => {
     const out = new Float64Array(3);
     directionToCubeFace(out, 0, 1, 0.5, -0.25);
     expect(out[0]).toBe(0); expect(out[1]).toBeCloseTo(0.625, 12); expect(out[2]).toBeCloseTo(0.25, 12);
@@ -18,7 +18,7 @@ describe('cube face selection (Vulkan spec, Cube Map Face Selection; OpenGL 4.6 
     expect(out[0]).toBe(5); expect(out[1]).toBeCloseTo(0.714286, 6); expect(out[2]).toBeCloseTo(0.428571, 6);
   });
 
-  it('maps face centres to the axes and corners to the table (inverse table, REFERENCES.md sec. 9)', () => {
+  it('maps face centres to the axes and corners to the table (inverse table of the Vulkan specification)', () => {
     const d = new Float64Array(3);
     const axes = [[1, 0, 0], [-1, 0, 0], [0, 1, 0], [0, -1, 0], [0, 0, 1], [0, 0, -1]];
     axes.forEach((axis, face) => {
@@ -56,7 +56,7 @@ describe('cube face selection (Vulkan spec, Cube Map Face Selection; OpenGL 4.6 
 });
 
 describe('texel solid angles', () => {
-  it('sum to 4 pi over the cube, pi/6 per texel at N = 2 (REFERENCES.md sec. 9)', () => {
+  it('sum to 4 pi over the cube, pi/6 per texel at N = 2 (exact)', () => {
     for (const n of [1, 2, 3, 16, 64, 256]) {
       const table = cubeFaceSolidAngleTable(n);
       let sum = 0;
@@ -77,7 +77,7 @@ describe('texel solid angles', () => {
     expect(cubeTexelSolidAngle(1, 3, n)).toBeCloseTo(numeric, 12);
   });
 
-  it('equirect rows sum to 4 pi and match the 8x4 example (REFERENCES.md sec. 10)', () => {
+  it('equirect rows sum to 4 pi and match the 8x4 example (exact)', () => {
     const rows = [0.230038, 0.555360, 0.555360, 0.230038];
     rows.forEach((v, j) => expect(equirectPixelSolidAngle(8, 4, j)).toBeCloseTo(v, 6));
     let sum = 0;
@@ -86,7 +86,7 @@ describe('texel solid angles', () => {
   });
 });
 
-describe('equirectangular mapping (DESIGN.md convention)', () => {
+describe('equirectangular mapping (README, Conventions)', () => {
   it('puts -Z at the centre, +X at u = 0.75 and +Y on row 0', () => {
     const uv = new Float64Array(2);
     directionToEquirect(uv, 0, 0, 0, -1);

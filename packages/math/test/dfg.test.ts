@@ -47,7 +47,7 @@ describe('DFG terms (Karis 2013 split sum; check values of an independent quadra
     expect(dfg(0.25, 0.75)[1]).toBeCloseTo(0.0279483, 3);
   });
 
-  it('tends to A = 1 - (1 - mu)^5, B = (1 - mu)^5 as roughness -> 0 (REFERENCES.md sec. 5, derived)', () => {
+  it('tends to A = 1 - (1 - mu)^5, B = (1 - mu)^5 as roughness -> 0 (derived)', () => {
     for (const mu of [0.2, 0.5, 0.9]) {
       const [a, b] = dfg(mu, 0.02, 4096);
       expect(a).toBeCloseTo(1 - (1 - mu) ** 5, 4);
@@ -55,17 +55,17 @@ describe('DFG terms (Karis 2013 split sum; check values of an independent quadra
     }
   });
 
-  it('gives E = 1 - ln 2 at alpha = 1, mu = 1 (REFERENCES.md sec. 5, exact)', () => {
+  it('gives E = 1 - ln 2 at alpha = 1, mu = 1 (exact)', () => {
     const [a, b] = dfg(1, 1, 65536);
     expect(a + b).toBeCloseTo(1 - Math.LN2, 3);
   });
 
-  it('rejects the separable Smith k = alpha/2 variant (wrong-G detector, REFERENCES.md sec. 5)', () => {
+  it('rejects the separable Smith k = alpha/2 variant (wrong-G detector)', () => {
     const [a] = dfg(0.5, 0.5);
     expect(Math.abs(a - 0.7285)).toBeGreaterThan(0.05);
   });
 
-  it('averages E over mu: E_avg(pr 0.5) = 0.8823 (REFERENCES.md sec. 5)', () => {
+  it('averages E over mu: E_avg(pr 0.5) = 0.8823 (published check values)', () => {
     const alpha = alphaFromPerceptualRoughness(0.5);
     expect(dfgAverageAlbedo(alpha, createGgxHalfVectorSet(alpha, 4096), 64)).toBeCloseTo(0.8823, 2);
     const alpha1 = alphaFromPerceptualRoughness(1);
@@ -73,7 +73,7 @@ describe('DFG terms (Karis 2013 split sum; check values of an independent quadra
   });
 });
 
-describe('multiple scattering (REFERENCES.md sec. 6)', () => {
+describe('multiple scattering (published check values)', () => {
   it('conserves energy at F0 = 1 for Fdez-Aguera 2019 and Turquin 2019', () => {
     for (const pr of [0.25, 0.5, 1]) {
       const [a, b] = dfg(0.5, pr, 4096);

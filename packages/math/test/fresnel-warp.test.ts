@@ -10,7 +10,7 @@ describe('Schlick Fresnel', () => {
   it('F0 of IOR 1.5 is 0.04 (Fresnel equations at normal incidence)', () => {
     expect(f0FromIor(1.5)).toBeCloseTo(0.04, 15);
   });
-  it('matches REFERENCES.md sec. 4 values (Schlick 1994)', () => {
+  it('matches published values (Schlick 1994)', () => {
     expect(schlickFresnel(0.04, 1, 0.5)).toBeCloseTo(0.07, 12);
     expect(schlickFresnel(0.04, 1, 0.1)).toBeCloseTo(0.60687, 5);
     expect(schlickFresnel(0.04, 1, 1)).toBe(0.04);

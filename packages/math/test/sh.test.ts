@@ -26,7 +26,7 @@ function irradianceAt(radiance: Float64Array, x: number, y: number, z: number): 
   return out[0]!;
 }
 
-describe('SH9 basis (Ramamoorthi & Hanrahan 2001, eq. 3; REFERENCES.md sec. 8)', () => {
+describe('SH9 basis (Ramamoorthi & Hanrahan 2001, eq. 3)', () => {
   it('has the published constants', () => {
     const b = new Float64Array(9);
     evalSh9Basis(b, 0, 0, 0, 1);
@@ -57,7 +57,7 @@ describe('SH9 basis (Ramamoorthi & Hanrahan 2001, eq. 3; REFERENCES.md sec. 8)',
   });
 });
 
-describe('SH9 irradiance (REFERENCES.md sec. 8 checks)', () => {
+describe('SH9 irradiance (published check values)', () => {
   it('constant radiance 1 gives E = pi everywhere', () => {
     const c = project(() => 1);
     expect(irradianceAt(c, 0, 0, 1)).toBeCloseTo(Math.PI, 8);
