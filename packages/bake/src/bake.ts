@@ -22,6 +22,7 @@ import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
 import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
 import { buildPyramid, pyramidLayout, type Pyramid } from './stages/pyramid.js';
 import type { BakeEvent } from './events.js';
+import { HttpStore, LayeredStore } from './cache/remote.js';
 import { commitFiles, discardFiles, refuseSymlink, sameContent, stageFile, sweepStaleTempFiles, writeError, type StagedFile } from './files.js';
 import { nodeGeometryOnPool } from './stages/node-geometry.js';
 import { decodeSource, type InputFile, type SanitizeCounts, type SourceImage } from './stages/source.js';
@@ -45,6 +46,16 @@ export interface BakerOptions {
    * the current directory.
    */
   readonly cache?: string | CacheStore | false;
+  /**
+   * A shared cache server (HTTP build-cache protocol, cache/remote.ts) behind the local cache folder:
+   * read-through, write-through, degrading to local with one warning when it fails. Credentials in the
+   * URL or LIGHTKILN_REMOTE_CACHE_TOKEN.
+   */
+  readonly remoteCache?: string;
+  /** Milliseconds per remote request before the remote counts as down. Default 10 000. */
+  readonly remoteTimeoutMs?: number;
+  /** Receives warnings (a remote cache switched off). Default: process.emitWarning. */
+  readonly onWarning?: (message: string) => void;
   /** Least-recently-used eviction after each bake down to this many bytes; default unlimited. */
   readonly cacheMaxBytes?: number;
   /** Cost units (texels x samples) per pool tile; default 200 000. */
@@ -338,7 +349,20 @@ export class Baker {
     const cache = options.cache ?? '.lightkiln-cache';
     if (cache !== false && typeof cache !== 'string' && !isStore(cache)) throw invalidOption('cache', 'must be a folder path, a CacheStore or false', cache);
     if (cache === '') throw invalidOption('cache', 'must be a non-empty folder path', cache);
-    this.#store = cache === false ? null : typeof cache === 'string' ? new FolderStore(cache) : cache;
+    const base = cache === false ? null : typeof cache === 'string' ? new FolderStore(cache) : cache;
+    if (options.remoteCache !== undefined) {
+      if (typeof options.remoteCache !== 'string') throw invalidOption('remoteCache', 'must be an http(s) URL', typeof options.remoteCache);
+      if (base === null) throw invalidOption('remoteCache', 'needs a local cache (cache is false)', options.remoteCache);
+      let remote: HttpStore;
+      try {
+        remote = new HttpStore(options.remoteCache, { ...(options.remoteTimeoutMs !== undefined ? { timeoutMs: options.remoteTimeoutMs } : {}) });
+      } catch (error) {
+        throw new LightkilnError('INVALID_OPTION', `option "remoteCache": ${error instanceof Error ? error.message : String(error)}`);
+      }
+      this.#store = new LayeredStore(base, remote, { ...(options.onWarning !== undefined ? { onWarning: options.onWarning } : {}) });
+    } else {
+      this.#store = base;
+    }
   }
 
   get threads(): number {

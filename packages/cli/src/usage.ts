@@ -36,6 +36,7 @@ run "lightkiln <command> --help" for a command's options`,
   --threads N          worker threads (0 = inline)                             default all cores
   --no-cache           do not read or write the cache
   --cache-dir DIR      cache folder                                            default .lightkiln-cache
+  --remote-cache URL   shared cache server (HTTP build-cache protocol) behind the folder
   --json               print one JSON document on stdout
   --quiet              no progress on stderr`,
   lut: `usage: lightkiln lut --out <file.ktx2> [options]

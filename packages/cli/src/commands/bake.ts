@@ -11,7 +11,7 @@ import { createProgress } from '../progress.js';
 const SPEC = {
   out: { type: 'string' }, size: { type: 'number' }, levels: { type: 'number' }, samples: { type: 'string' },
   rotate: { type: 'number' }, format: { type: 'string' }, 'irradiance-size': { type: 'number' }, filtered: { type: 'boolean' },
-  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' }, depfile: { type: 'string' }, events: { type: 'boolean' },
+  zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' }, depfile: { type: 'string' }, events: { type: 'boolean' }, 'remote-cache': { type: 'string' },
   threads: { type: 'number' }, cache: { type: 'boolean' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' },
   help: { type: 'boolean' },
 } as const;
@@ -19,9 +19,12 @@ const SPEC = {
 export function bakerOptions(flags: Record<string, unknown>): BakerOptions {
   const cacheOff = flags.cache === false;
   if (cacheOff && flags['cache-dir'] !== undefined) throw new UsageError('bake', '--no-cache and --cache-dir exclude each other');
+  const remote = flags['remote-cache'] as string | undefined;
+  if (cacheOff && remote !== undefined) throw new UsageError('bake', '--no-cache and --remote-cache exclude each other');
   return {
     ...(flags.threads !== undefined ? { threads: flags.threads as number } : {}),
     cache: cacheOff ? false : ((flags['cache-dir'] as string | undefined) ?? '.lightkiln-cache'),
+    ...(remote !== undefined ? { remoteCache: remote, onWarning: (m: string) => process.stderr.write(`lightkiln: warning: ${m}\n`) } : {}),
   };
 }
 
