@@ -7,7 +7,7 @@ export type { LightkilnErrorCode } from './errors.js';
 export { CACHE_MARKER, FolderStore, MemoryStore, notACache, pruneStore } from './cache/store.js';
 export { refuseSymlink, writeFilesAtomic, removeLiveTempFiles, sweepStaleTempFiles, writeFileAtomic } from './files.js';
 export type { CacheStore, CacheEntryInfo } from './cache/store.js';
-export { HttpStore, LayeredStore, redactUrl } from './cache/remote.js';
+export { HttpStore, LayeredStore, RemoteUnavailableError, redactUrl } from './cache/remote.js';
 export type { RemoteStoreOptions } from './cache/remote.js';
 export { decodeEntry, encodeEntry } from './cache/entry.js';
 export type { CacheStats } from './cache/entry.js';

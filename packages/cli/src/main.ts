@@ -5,6 +5,7 @@ import { closeSharedPools, LightkilnError, removeLiveTempFiles, TOOL_NAME, TOOL_
 import { UsageError } from './args.js';
 import { bakeCommand } from './commands/bake.js';
 import { cacheCommand } from './commands/cache.js';
+import { farmCommand } from './commands/farm.js';
 import { inspectCommand } from './commands/inspect.js';
 import { lutCommand } from './commands/lut.js';
 import { previewCommand } from './commands/preview.js';
@@ -19,6 +20,7 @@ const COMMANDS: Record<string, (argv: readonly string[], ctx: CommandContext) =>
   cache: cacheCommand,
   preview: previewCommand,
   sweep: sweepCommand,
+  farm: farmCommand,
 };
 
 export async function main(argv: readonly string[]): Promise<number> {

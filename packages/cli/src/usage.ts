@@ -10,6 +10,7 @@ usage:
   lightkiln preview <probe.json> --out <file.png>  render the contact sheet of a baked probe
   lightkiln cache <stats|verify|prune|clear>       look after the bake cache
   lightkiln sweep <input> --out <dir>              error versus time for sample budgets and methods
+  lightkiln farm worker|submit ...                 bake on many machines (Redis queue, shared cache)
 
 common options: --json  --quiet  --threads N  --no-cache  --cache-dir D
 run "lightkiln <command> --help" for a command's options`,
@@ -61,4 +62,15 @@ run "lightkiln <command> --help" for a command's options`,
   preview: `usage: lightkiln preview <probe.probe.json> --out <file.png> [--exposure EV] [--json]`,
   cache: `usage: lightkiln cache stats|verify|clear [--cache-dir DIR] [--json]
        lightkiln cache prune --max-bytes N [--cache-dir DIR] [--json]`,
+  farm: `usage: lightkiln farm worker --redis <url> --remote-cache <url> [--queue NAME] [--threads N] [--cache-dir D] [--lock-ms MS]
+       lightkiln farm submit <input...> | --batch <file> --redis <url> --remote-cache <url> --out <dir> [options]
+
+  worker: takes bake jobs until SIGINT or SIGTERM (then finishes the job in progress)
+  submit: uploads inputs to the shared cache, queues one job per probe (duplicates bake once), shows
+          progress on stderr, writes every artifact into --out; recipe options as for bake
+  --redis URL          redis://[user:password@]host:port (configured maxmemory-policy noeviction)
+  --remote-cache URL   the shared cache server (HTTP build-cache protocol)
+  --queue NAME         queue name                                              default lightkiln-bakes
+  --lock-ms MS         worker: job lock; a dead worker's job moves on after it     default 30000
+  --json, --quiet`,
 };

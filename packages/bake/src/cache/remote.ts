@@ -36,6 +36,7 @@ export function redactUrl(url: string): string {
 
 const sha256 = (bytes: Uint8Array): string => createHash('sha256').update(bytes).digest('hex');
 
+/** The server could not be reached, timed out, refused the credentials or failed (5xx). */
 export class RemoteUnavailableError extends Error {}
 
 /** The HTTP build-cache client (throws RemoteUnavailableError on transport failures and server errors). */
@@ -122,6 +123,28 @@ export class HttpStore implements CacheStore {
 
   async delete(key: string): Promise<void> {
     await this.#request('DELETE', `ac/${key}`);
+  }
+
+  /** Stores content under its SHA-256 (cas/) and returns the digest; skips the upload when present. */
+  async putBlob(bytes: Uint8Array): Promise<string> {
+    const digest = sha256(bytes);
+    const head = await this.#request('HEAD', `cas/${digest}`);
+    if (head.ok && Number(head.headers.get('content-length')) === bytes.length) return digest;
+    const r = await this.#request('PUT', `cas/${digest}`, bytes);
+    if (!r.ok) throw new RemoteUnavailableError(`PUT ${this.label}/cas: HTTP ${r.status}`);
+    return digest;
+  }
+
+  /** Content by digest, verified; undefined when absent or corrupt. */
+  async getBlob(digest: string): Promise<Uint8Array | undefined> {
+    if (!/^[0-9a-f]{64}$/.test(digest)) return undefined;
+    const r = await this.#request('GET', `cas/${digest}`);
+    if (!r.ok) {
+      await r.arrayBuffer().catch(() => undefined);
+      return undefined;
+    }
+    const bytes = new Uint8Array(await r.arrayBuffer());
+    return sha256(bytes) === digest ? bytes : undefined;
   }
 
   /** A remote cache is not listed (the server owns its eviction). */

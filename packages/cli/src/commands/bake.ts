@@ -8,7 +8,7 @@ import { parseArgs, UsageError } from '../args.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, printJson, type CommandContext } from '../io.js';
 import { createProgress } from '../progress.js';
 
-const SPEC = {
+export const BAKE_SPEC = {
   out: { type: 'string' }, size: { type: 'number' }, levels: { type: 'number' }, samples: { type: 'string' },
   rotate: { type: 'number' }, format: { type: 'string' }, 'irradiance-size': { type: 'number' }, filtered: { type: 'boolean' },
   zlib: { type: 'boolean' }, zstd: { type: 'boolean' }, views: { type: 'boolean' }, preview: { type: 'boolean' }, name: { type: 'string' }, recipe: { type: 'string' }, batch: { type: 'string' }, depfile: { type: 'string' }, events: { type: 'boolean' }, 'remote-cache': { type: 'string' },
@@ -89,7 +89,7 @@ function inputPaths(recipe: Recipe): string[] {
  * files, probe names are unique (two entries would write the same files), the output folder and any
  * existing file of a probe there are not symbolic links. One bad entry stops the whole batch before work.
  */
-function preflight(recipes: readonly Recipe[], out: string, batchPath: string | undefined): void {
+export function preflight(recipes: readonly Recipe[], out: string, batchPath: string | undefined): void {
   const where = (i: number): string => (batchPath === undefined ? '' : `${batchPath}: entry ${i}: `);
   refuseSymlink(out);
   let existing: string[] = [];
@@ -127,14 +127,13 @@ function preflight(recipes: readonly Recipe[], out: string, batchPath: string | 
   });
 }
 
-export async function bakeCommand(argv: readonly string[], ctx: CommandContext): Promise<number> {
-  const { positionals, flags } = parseArgs('bake', argv, SPEC);
-  if (flags.help === true) return -1;
-  const out = flags.out as string | undefined;
-  if (out === undefined) throw new UsageError('bake', 'missing --out <dir>');
-  if (positionals.length === 0 && flags.batch === undefined) throw new UsageError('bake', 'give at least one input file or --batch <file>');
-  if (positionals.length > 0 && flags.batch !== undefined) throw new UsageError('bake', 'give input files or --batch, not both');
-  if (flags.name !== undefined && positionals.length !== 1) throw new UsageError('bake', '--name needs exactly one input');
+/**
+ * The recipes of a bake or farm submission: input files or a batch file, a base recipe file, flags on top.
+ */
+export function recipesFromArgs(command: string, positionals: readonly string[], flags: Record<string, unknown>): Recipe[] {
+  if (positionals.length === 0 && flags.batch === undefined) throw new UsageError(command, 'give at least one input file or --batch <file>');
+  if (positionals.length > 0 && flags.batch !== undefined) throw new UsageError(command, 'give input files or --batch, not both');
+  if (flags.name !== undefined && positionals.length !== 1) throw new UsageError(command, '--name needs exactly one input');
   const base = flags.recipe !== undefined ? readJson(flags.recipe as string, 'recipe') : {};
   if (typeof base !== 'object' || base === null || Array.isArray(base)) throw new LightkilnError('INVALID_RECIPE', `${String(flags.recipe)}: a recipe file holds one JSON object`);
   const fromFlags = flagRecipe(flags);
@@ -156,6 +155,15 @@ export async function bakeCommand(argv: readonly string[], ctx: CommandContext):
       input: { path }, ...(flags.name !== undefined ? { name: flags.name } : {}),
     }) as unknown as Recipe);
   }
+  return recipes;
+}
+
+export async function bakeCommand(argv: readonly string[], ctx: CommandContext): Promise<number> {
+  const { positionals, flags } = parseArgs('bake', argv, BAKE_SPEC);
+  if (flags.help === true) return -1;
+  const out = flags.out as string | undefined;
+  if (out === undefined) throw new UsageError('bake', 'missing --out <dir>');
+  const recipes = recipesFromArgs('bake', positionals, flags);
   preflight(recipes, out, flags.batch as string | undefined);
   const baker = createBaker(bakerOptions(flags));
   // --events: one JSON object per line on stderr instead of the progress display (schema: bake's events.ts).
