@@ -123,4 +123,25 @@ describe.runIf(enabled)('farm (BullMQ on redis-server, shared cache on nginx Web
     for (const ext of ['specular.ktx2', 'irradiance.ktx2']) expect(digest(join(work, 'out-kill', `big.${ext}`))).toBe(digest(join(work, 'local-big', `big.${ext}`)));
     b.child.kill('SIGTERM');
   }, 120_000);
+
+  it('survives a Redis restart between jobs, and a stopped cache server makes submit fail clearly', async () => {
+    const batch = join(work, 'one.json');
+    writeFileSync(batch, JSON.stringify([{ input: { path: 'north.pfm' }, name: 'again', size: 16, samples: 'draft', rotationDeg: 30 }]));
+    const w = startWorker(4, 'q3');
+    await waitFor(() => w.log.some((l) => l.includes('ready')), 20_000);
+    await redis!.stop();
+    await redis!.start();
+    const after = await submit(batch, join(work, 'out-restart'), 'q3');
+    expect(after.status, after.stderr).toBe(0);
+    expect(w.log.some((l) => /baked again/.test(l))).toBe(true);
+    await dav!.stop();
+    try {
+      const down = await submit(batch, join(work, 'out-down'), 'q3');
+      expect(down.status).toBe(1);
+      expect(down.stderr).toContain('shared cache');
+    } finally {
+      await dav!.start();
+    }
+    w.child.kill('SIGTERM');
+  }, 120_000);
 });

@@ -4,7 +4,7 @@
  */
 
 import { join } from 'node:path';
-import { writeFilesAtomic, type Recipe } from '@lightkiln/bake';
+import { LightkilnError, RemoteUnavailableError, writeFilesAtomic, type Recipe } from '@lightkiln/bake';
 import { FarmClient, startFarmWorker } from '@lightkiln/farm';
 import { parseArgs, UsageError } from '../args.js';
 import { EXIT_FAILED, EXIT_OK, printJson, type CommandContext } from '../io.js';
@@ -79,6 +79,9 @@ async function farmSubmit(argv: readonly string[], ctx: CommandContext): Promise
   let results;
   try {
     results = await client.submit(recipes);
+  } catch (error) {
+    if (error instanceof RemoteUnavailableError) throw new LightkilnError('IO_ERROR', `the shared cache cannot take the inputs: ${error.message}`);
+    throw error;
   } finally {
     await client.close();
   }
