@@ -8,6 +8,7 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer, connect } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { stopChild } from './tools.js';
 
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -81,12 +82,7 @@ http {
     await waitForPort(port, 10_000);
   };
   const stop = async (): Promise<void> => {
-    const c = child;
-    if (c === null || c.exitCode !== null) return;
-    await new Promise<void>((resolve) => {
-      c.once('exit', () => resolve());
-      c.kill('SIGTERM');
-    });
+    await stopChild(child);
     child = null;
   };
   await start();

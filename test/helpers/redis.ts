@@ -2,6 +2,7 @@
 
 import { spawn, type ChildProcess } from 'node:child_process';
 import { freePort } from './nginx.js';
+import { stopChild } from './tools.js';
 
 export interface RedisServer {
   readonly url: string;
@@ -35,12 +36,7 @@ export async function startRedis(): Promise<RedisServer> {
     port,
     start,
     async stop(): Promise<void> {
-      const c = child;
-      if (c === null || c.exitCode !== null) return;
-      await new Promise<void>((resolve) => {
-        c.once('exit', () => resolve());
-        c.kill('SIGTERM');
-      });
+      await stopChild(child);
       child = null;
     },
   };

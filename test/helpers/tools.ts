@@ -3,7 +3,7 @@
  * the checks that need them are skipped; under CI (LIGHTKILN_REQUIRE_TOOLS=1) a missing tool fails.
  */
 
-import { spawnSync } from 'node:child_process';
+import { spawnSync, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -29,4 +29,13 @@ export function withTempDir<T>(fn: (dir: string) => T): T {
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
+}
+
+/** Stops a server we started, by its PID (SIGTERM), and waits for it to exit; no-op when it is gone. */
+export async function stopChild(child: ChildProcess | null): Promise<void> {
+  if (child === null || child.exitCode !== null || child.signalCode !== null) return;
+  await new Promise<void>((resolve) => {
+    child.once('exit', () => resolve());
+    child.kill('SIGTERM');
+  });
 }
