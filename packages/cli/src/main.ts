@@ -5,7 +5,6 @@ import { closeSharedPools, LightkilnError, removeLiveTempFiles, TOOL_NAME, TOOL_
 import { UsageError } from './args.js';
 import { bakeCommand } from './commands/bake.js';
 import { cacheCommand } from './commands/cache.js';
-import { farmCommand } from './commands/farm.js';
 import { inspectCommand } from './commands/inspect.js';
 import { lutCommand } from './commands/lut.js';
 import { previewCommand } from './commands/preview.js';
@@ -20,7 +19,8 @@ const COMMANDS: Record<string, (argv: readonly string[], ctx: CommandContext) =>
   cache: cacheCommand,
   preview: previewCommand,
   sweep: sweepCommand,
-  farm: farmCommand,
+  // Loaded on use: the queue client (bullmq, ioredis) is heavy for every other command's start-up.
+  farm: async (argv, ctx) => (await import('./commands/farm.js')).farmCommand(argv, ctx),
 };
 
 export async function main(argv: readonly string[]): Promise<number> {

@@ -6,18 +6,23 @@
  * declare (anything else is refused before decoding).
  */
 
-import * as zstdWasm from '@bokuweb/zstd-wasm';
 import { decompress as fzstdDecompress } from 'fzstd';
 import { CodecError } from './errors.js';
 
 type ZstdModule = { init(): Promise<void>; compress(data: Uint8Array, level?: number): Uint8Array };
-const wasm = ((zstdWasm as unknown as { default?: ZstdModule }).default ?? (zstdWasm as unknown as ZstdModule));
+let wasm: ZstdModule | null = null;
 let ready: Promise<void> | null = null;
 let initialised = false;
 
-/** Loads the encoder (once per thread); needed before encodeKtx2 with supercompression 'zstd'. */
+/**
+ * Loads the encoder (once per thread; the module itself is imported only then, so programs that never
+ * write Zstandard do not pay for it); needed before encodeKtx2 with supercompression 'zstd'.
+ */
 export function initZstd(): Promise<void> {
-  ready ??= wasm.init().then(() => {
+  ready ??= import('@bokuweb/zstd-wasm').then(async (m) => {
+    const mod = ((m as unknown as { default?: ZstdModule }).default ?? (m as unknown as ZstdModule));
+    await mod.init();
+    wasm = mod;
     initialised = true;
   });
   return ready;
@@ -29,7 +34,7 @@ export function zstdReady(): boolean {
 
 /** One Zstandard frame of `data` at `level` (1..19; default 3). */
 export function zstdCompress(data: Uint8Array, level = 3, file = 'output'): Uint8Array {
-  if (!initialised) throw new CodecError('INVALID_ARGUMENT', file, 'Zstandard encoder not initialised: await initZstd() first');
+  if (!initialised || wasm === null) throw new CodecError('INVALID_ARGUMENT', file, 'Zstandard encoder not initialised: await initZstd() first');
   return Uint8Array.from(wasm.compress(data, level));
 }
 
