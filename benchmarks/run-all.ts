@@ -4,6 +4,7 @@ import { writeReport } from './common.js';
 import { bakeBench } from './bake.bench.js';
 import { codecsBench } from './codecs.bench.js';
 import { estimatorsBench } from './estimators.bench.js';
+import { farmBench } from './farm.bench.js';
 import { kernelsBench } from './kernels.bench.js';
 import { sweepBench } from './sweep.bench.js';
 import { mathBench } from './math.bench.js';
@@ -21,6 +22,7 @@ const suites: Record<string, () => Promise<void>> = {
   bake: bakeBench,
   sweep: sweepBench,
   supercompression: supercompressionBench,
+  farm: farmBench,
 };
 
 const wanted = process.argv.slice(2);

@@ -71,6 +71,6 @@ run "lightkiln <command> --help" for a command's options`,
   --redis URL          redis://[user:password@]host:port (configured maxmemory-policy noeviction)
   --remote-cache URL   the shared cache server (HTTP build-cache protocol)
   --queue NAME         queue name                                              default lightkiln-bakes
-  --lock-ms MS         worker: job lock; a dead worker's job moves on after it     default 30000
+  --lock-ms MS         worker: job lock; a dead worker's job moves on within 1.5x  default 10000
   --json, --quiet`,
 };

@@ -19,7 +19,11 @@ export interface FarmWorkerOptions {
   readonly threads?: number;
   /** Local cache folder in front of the shared one; default ".lightkiln-cache". */
   readonly cacheDir?: string;
-  /** Job lock duration in ms (a dead worker's job is taken over after it); default 30 000. */
+  /**
+   * Job lock duration in ms; default 10 000. A live worker renews its lock every half of it (its event loop
+   * is free during a bake); a dead worker's job is taken over once the lock lapses and the next stall check
+   * (every half lock) runs: within 1.5 x the lock, 15 s by default.
+   */
   readonly lockDurationMs?: number;
   /** Log lines (job taken, baked, failed). */
   readonly log?: (line: string) => void;
@@ -71,8 +75,8 @@ export async function startFarmWorker(options: FarmWorkerOptions): Promise<FarmW
   const worker = new Worker<FarmJobData, FarmJobResult>(options.queue ?? DEFAULT_QUEUE, processor, {
     connection,
     concurrency: 1,
-    lockDuration: options.lockDurationMs ?? 30_000,
-    stalledInterval: Math.min(30_000, options.lockDurationMs ?? 30_000),
+    lockDuration: options.lockDurationMs ?? 10_000,
+    stalledInterval: Math.round((options.lockDurationMs ?? 10_000) / 2),
     maxStalledCount: 2,
   });
   worker.on('failed', (job, error) => log(`job ${job?.id?.slice(0, 12) ?? '?'}: failed: ${error instanceof LightkilnError ? error.message : error.message}`));
