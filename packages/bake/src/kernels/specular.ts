@@ -9,6 +9,7 @@
  */
 
 import type { SharedBuffers } from '@lightkiln/pool';
+import { fetchSeamlessBilinear } from './cube-fetch.js';
 import { texelCentreDirection } from './texel.js';
 
 export const SPECULAR_SAMPLE_STRIDE = 6;
@@ -46,6 +47,7 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
   const err = buffers.err as Float32Array;
   const size = params.size;
   const centre = new Float64Array(3);
+  const edge = new Float64Array(3);
   const levelBegin = params.levelBegin;
   const dstOffset = params.dstOffset;
   const s0 = params.sampleOffset * SPECULAR_SAMPLE_STRIDE;
@@ -110,47 +112,63 @@ export function prefilterSpecular(buffers: SharedBuffers, begin: number, end: nu
       const max0 = (n0 - 1) | 0;
       let fx = fs * n0 - 0.5;
       let fy = ft * n0 - 0.5;
-      if (fx < 0) fx = 0; else if (fx > max0) fx = max0;
-      if (fy < 0) fy = 0; else if (fy > max0) fy = max0;
-      let x0 = fx | 0;
-      let y0 = fy | 0;
-      let ex = fx - x0;
-      let ey = fy - y0;
-      let i00 = (L[q]! + ((f * n0 + y0) * n0 + x0) * 3) | 0;
-      let i10 = x0 < max0 ? (i00 + 3) | 0 : i00;
-      let i01 = y0 < max0 ? (i00 + n0 * 3) | 0 : i00;
-      let i11 = (i01 + i10 - i00) | 0;
-      const wl = S[k + 4]!;
-      let w11 = ex * ey * wl;
-      let w10 = ex * wl - w11;
-      let w01 = ey * wl - w11;
-      let w00 = wl - ex * wl - w01;
-      let sr = pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
-      let sg = pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
-      let sb = pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
-      const wf = S[k + 5]!;
-      if (wf > 0) {
-        const n1 = L[q + 3]!;
-        const max1 = (n1 - 1) | 0;
-        fx = fs * n1 - 0.5;
-        fy = ft * n1 - 0.5;
-        if (fx < 0) fx = 0; else if (fx > max1) fx = max1;
-        if (fy < 0) fy = 0; else if (fy > max1) fy = max1;
-        x0 = fx | 0;
-        y0 = fy | 0;
-        ex = fx - x0;
-        ey = fy - y0;
-        i00 = (L[q + 2]! + ((f * n1 + y0) * n1 + x0) * 3) | 0;
-        i10 = x0 < max1 ? (i00 + 3) | 0 : i00;
-        i01 = y0 < max1 ? (i00 + n1 * 3) | 0 : i00;
-        i11 = (i01 + i10 - i00) | 0;
-        w11 = ex * ey * wf;
-        w10 = ex * wf - w11;
-        w01 = ey * wf - w11;
-        w00 = wf - ex * wf - w01;
-        sr += pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
-        sg += pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
-        sb += pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
+      let sr: number;
+      let sg: number;
+      let sb: number;
+      // The coarser level read (l1 when the sample blends two) decides: its texels reach farther.
+      const nc = S[k + 5]! > 0 ? L[q + 3]! : n0;
+      const ex0 = fs * nc - 0.5;
+      const ey0 = ft * nc - 0.5;
+      if (ex0 < 0 || ex0 > nc - 1 || ey0 < 0 || ey0 > nc - 1) {
+        // Within half a texel of a face edge: the seamless fetch (rare at fine levels), both levels.
+        edge[0] = 0; edge[1] = 0; edge[2] = 0;
+        fetchSeamlessBilinear(edge, pyr, L[q]!, n0, f, fx, fy, S[k + 4]!);
+        const wfe = S[k + 5]!;
+        if (wfe > 0) fetchSeamlessBilinear(edge, pyr, L[q + 2]!, L[q + 3]!, f, fs * L[q + 3]! - 0.5, ft * L[q + 3]! - 0.5, wfe);
+        sr = edge[0]!;
+        sg = edge[1]!;
+        sb = edge[2]!;
+      } else {
+        let x0 = fx | 0;
+        let y0 = fy | 0;
+        let ex = fx - x0;
+        let ey = fy - y0;
+        let i00 = (L[q]! + ((f * n0 + y0) * n0 + x0) * 3) | 0;
+        let i10 = x0 < max0 ? (i00 + 3) | 0 : i00;
+        let i01 = y0 < max0 ? (i00 + n0 * 3) | 0 : i00;
+        let i11 = (i01 + i10 - i00) | 0;
+        const wl = S[k + 4]!;
+        let w11 = ex * ey * wl;
+        let w10 = ex * wl - w11;
+        let w01 = ey * wl - w11;
+        let w00 = wl - ex * wl - w01;
+        sr = pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
+        sg = pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
+        sb = pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
+        const wf = S[k + 5]!;
+        if (wf > 0) {
+          const n1 = L[q + 3]!;
+          const max1 = (n1 - 1) | 0;
+          fx = fs * n1 - 0.5;
+          fy = ft * n1 - 0.5;
+          if (fx < 0) fx = 0; else if (fx > max1) fx = max1;
+          if (fy < 0) fy = 0; else if (fy > max1) fy = max1;
+          x0 = fx | 0;
+          y0 = fy | 0;
+          ex = fx - x0;
+          ey = fy - y0;
+          i00 = (L[q + 2]! + ((f * n1 + y0) * n1 + x0) * 3) | 0;
+          i10 = x0 < max1 ? (i00 + 3) | 0 : i00;
+          i01 = y0 < max1 ? (i00 + n1 * 3) | 0 : i00;
+          i11 = (i01 + i10 - i00) | 0;
+          w11 = ex * ey * wf;
+          w10 = ex * wf - w11;
+          w01 = ey * wf - w11;
+          w00 = wf - ex * wf - w01;
+          sr += pyr[i00]! * w00 + pyr[i10]! * w10 + pyr[i01]! * w01 + pyr[i11]! * w11;
+          sg += pyr[i00 + 1]! * w00 + pyr[i10 + 1]! * w10 + pyr[i01 + 1]! * w01 + pyr[i11 + 1]! * w11;
+          sb += pyr[i00 + 2]! * w00 + pyr[i10 + 2]! * w10 + pyr[i01 + 2]! * w01 + pyr[i11 + 2]! * w11;
+        }
       }
       // BT.709 luminance of the sample, times w.
       let wy = 0.2126 * sr + 0.7152 * sg + 0.0722 * sb;
