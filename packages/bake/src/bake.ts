@@ -5,36 +5,25 @@
  * only the finished artifacts and a changed option recomputes only what depends on it.
  */
 
-import { lstatSync, mkdirSync, readFileSync, statSync } from 'node:fs';
+import { readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { decodeKtx2, initZstd, encodeExr, encodeHdr } from '@lightkiln/codecs';
-import { renderContactSheet } from './preview/sheet.js';
-import { getSharedPool, toShared, WorkerPool } from '@lightkiln/pool';
+import { getSharedPool, WorkerPool } from '@lightkiln/pool';
 import { EntryCache, type CacheStats } from './cache/entry.js';
-import { FolderStore, MemoryStore, pruneStore, type CacheStore } from './cache/store.js';
-import { aborted, invalidOption, LightkilnError, toLightkilnError, unsafePath } from './errors.js';
-import { sha256Hex, stageKey } from './hash.js';
-import { CONVENTIONS, MANIFEST_SCHEMA_VERSION, shTriples, TOOL_NAME, TOOL_VERSION, type Manifest, type ManifestArtifact, type ManifestLevel } from './manifest.js';
-import { resolveRecipe, roughnessToLodFormula, SAFE_NAME, type Recipe, type ResolvedRecipe } from './recipe.js';
-import { guardedContext, warmPool, type BakeProgress, type StageContext } from './stages/context.js';
-import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
-import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
-import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
-import { buildPyramid, pyramidLayout, type Pyramid } from './stages/pyramid.js';
-import type { BakeEvent } from './events.js';
 import { HttpStore, LayeredStore } from './cache/remote.js';
-import { commitFiles, discardFiles, refuseSymlink, sameContent, stageFile, sweepStaleTempFiles, writeError, type StagedFile } from './files.js';
-import { nodeGeometryOnPool } from './stages/node-geometry.js';
-import { decodeSource, type InputFile, type SanitizeCounts, type SourceImage } from './stages/source.js';
-import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specular.js';
-
-/** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
-export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 5, level: 5, sh: 1, irradianceCube: 1, dfg: 2, specularFile: 4, irradianceFile: 3, lutFile: 2, view: 1, preview: 1,
-});
-
-const SOURCE_RELEASED: Promise<SourceImage> = Promise.reject(new LightkilnError('BAKE_FAILED', 'internal: the decoded source was read after the pyramid was built'));
-SOURCE_RELEASED.catch(() => undefined);
+import { FolderStore, MemoryStore, pruneStore, type CacheStore } from './cache/store.js';
+import { aborted, invalidOption, LightkilnError, toLightkilnError } from './errors.js';
+import type { BakeEvent } from './events.js';
+import { sha256Hex } from './hash.js';
+import { computeKeys, keyLabels, STAGE_VERSIONS, type Keys } from './keys.js';
+import { CONVENTIONS, MANIFEST_SCHEMA_VERSION, shTriples, TOOL_NAME, TOOL_VERSION, type Manifest, type ManifestArtifact, type ManifestLevel } from './manifest.js';
+import { renderContactSheet } from './preview/sheet.js';
+import { resolveRecipe, roughnessToLodFormula, type Recipe, type ResolvedRecipe } from './recipe.js';
+import { BakeRun, encodeTimed } from './run.js';
+import { guardedContext, type BakeProgress } from './stages/context.js';
+import { cubeCross, encodeCubeKtx2, encodeDfgKtx2 } from './stages/encode.js';
+import type { InputFile, SanitizeCounts } from './stages/source.js';
+import { checkOutputFolder, writeAtomically } from './write.js';
 
 export interface BakerOptions {
   /** Worker threads; default the machine's available parallelism; 0 runs inline. Range 0..256. */
@@ -114,209 +103,6 @@ export interface BakePlan {
   readonly upToDate: boolean;
   readonly artifacts: readonly (PlanItem & { readonly name: string })[];
   readonly stages: readonly PlanItem[];
-}
-
-interface Keys {
-  readonly inputHash: string;
-  readonly source: string;
-  readonly pyramid: string;
-  readonly levels: readonly string[];
-  readonly sh: string;
-  readonly irradianceCube: string;
-  readonly dfg: string;
-  readonly specularFile: string;
-  readonly irradianceFile: string;
-  readonly lutFile: string;
-  readonly views: readonly { name: string; key: string; kind: 'mirror' | 'irradiance'; format: 'hdr' | 'exr' }[];
-  readonly preview: string;
-}
-
-function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
-  const V = STAGE_VERSIONS;
-  const source = stageKey('source', V.source!, { inputHash, layout: recipe.input.layout, sanitize: recipe.sanitize });
-  const pyramid = stageKey('pyramid', V.pyramid!, { source, size: recipe.size, rotationDeg: recipe.rotationDeg });
-  const levels = recipe.roughness.map((roughness, m) => stageKey('level', V.level!, {
-    pyramid, level: m, size: Math.max(1, recipe.size >> m), roughness, samples: m === 0 ? 0 : recipe.samples[m],
-    filtered: recipe.filtered, lodBias: recipe.lodBias, clampLuminance: recipe.clampLuminance, rotateSequence: recipe.rotateSequence,
-    quality: m === 0 ? 'mirror' : recipe.quality,
-  }));
-  const sh = stageKey('sh', V.sh!, { pyramid, window: recipe.irradiance.shWindow, width: recipe.irradiance.shWindowWidth });
-  const irradianceCube = stageKey('irradianceCube', V.irradianceCube!, { pyramid, size: recipe.irradiance.cubeSize, source: recipe.irradiance.cubeSource, sh: recipe.irradiance.cubeSource === 'sh9' ? sh : null });
-  const dfg = stageKey('dfg', V.dfg!, { size: recipe.dfg.size, samples: recipe.dfg.samples, multiscatter: recipe.dfg.multiscatter, cloth: recipe.dfg.cloth });
-  const fileOpts = { supercompression: recipe.output.supercompression };
-  const specularFile = stageKey('specularFile', V.specularFile!, { levels, format: recipe.output.specularFormat, ...fileOpts, source });
-  const irradianceFile = stageKey('irradianceFile', V.irradianceFile!, { irradianceCube, sh, format: recipe.output.irradianceFormat, ...fileOpts });
-  const lutFile = stageKey('lutFile', V.lutFile!, { dfg, ...fileOpts });
-  const views = recipe.output.views.flatMap((format) => (['mirror', 'irradiance'] as const).map((kind) => ({
-    name: `${recipe.name}.${kind}.${format}`, kind, format,
-    key: stageKey('view', V.view!, { of: kind === 'mirror' ? levels[0] : irradianceCube, format }),
-  })));
-  const preview = stageKey('preview', V.preview!, { specularFile, irradianceFile, lutFile: recipe.dfg.enabled ? lutFile : null, roughness: recipe.roughness });
-  return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views, preview };
-}
-
-function toF32(a: unknown): Float32Array {
-  if (!(a instanceof Float32Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
-  return a;
-}
-
-/** One bake: memoised stage getters over the cache. */
-class BakeRun {
-  readonly timings: Record<string, number> = {};
-  #source: Promise<SourceImage> | null = null;
-
-  #pyramid: Promise<{ pyramid: Pyramid; sanitized: SanitizeCounts }> | null = null;
-  #levels: Promise<LevelResult[]> | null = null;
-  #sh: Promise<ShResult> | null = null;
-  #irr: Promise<Float32Array> | null = null;
-
-  constructor(readonly recipe: ResolvedRecipe, readonly inputs: readonly InputFile[], readonly keys: Keys, readonly cache: EntryCache, readonly ctx: StageContext) {}
-
-  #check(): void {
-    if (this.ctx.signal?.aborted) throw aborted(this.ctx.signal.reason);
-  }
-
-  /** Structured events (BakeRunOptions.onEvent), already guarded by the caller. */
-  emit: (event: BakeEvent) => void = () => undefined;
-
-  async #timed<T>(stage: string, fn: () => Promise<T>): Promise<T> {
-    const t0 = performance.now();
-    this.emit({ type: 'stage', stage, state: 'started' });
-    try {
-      return await fn();
-    } finally {
-      const ms = performance.now() - t0;
-      this.timings[stage] = (this.timings[stage] ?? 0) + ms;
-      this.emit({ type: 'stage', stage, state: 'finished', ms: Math.round(ms * 10) / 10 });
-    }
-  }
-
-  source(): Promise<SourceImage> {
-    if (this.#source === null) {
-      warmPool(this.ctx);
-      // The quadrature's node geometry is built on a worker while this thread decodes.
-      nodeGeometryOnPool(this.recipe.size, this.ctx).catch(() => undefined);
-    }
-    this.#source ??= this.#timed('decode', async () => {
-      const entry = await this.cache.get(this.keys.source);
-      if (entry !== null) {
-        const meta = entry.meta as { kind: 'equirect' | 'cube'; width: number; height: number; size: number; sanitized: SanitizeCounts };
-        const data = toF32(entry.arrays[0]);
-        return meta.kind === 'equirect'
-          ? { kind: 'equirect', width: meta.width, height: meta.height, data, sanitized: meta.sanitized }
-          : { kind: 'cube', size: meta.size, data, sanitized: meta.sanitized };
-      }
-      this.#check();
-      const source = decodeSource(this.recipe, this.inputs);
-      await this.cache.put(this.keys.source, {
-        meta: source.kind === 'equirect' ? { kind: 'equirect', width: source.width, height: source.height, sanitized: source.sanitized } : { kind: 'cube', size: source.size, sanitized: source.sanitized },
-        arrays: [source.data],
-      });
-      return source;
-    });
-    return this.#source;
-  }
-
-  pyramid(): Promise<{ pyramid: Pyramid; sanitized: SanitizeCounts }> {
-    this.#pyramid ??= (async () => {
-      const entry = await this.cache.get(this.keys.pyramid);
-      if (entry !== null) {
-        const layout = pyramidLayout(this.recipe.size);
-        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
-      }
-      const source = await this.source();
-      this.#check();
-      const pyramid = await this.#timed('resample', () => buildPyramid(source, this.recipe.size, this.recipe.rotationDeg, this.ctx));
-      await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data, pyramid.centroids] });
-      // Nothing reads the decoded source after the pyramid (the pyramid is memoised): let it go.
-      this.#source = SOURCE_RELEASED;
-      return { pyramid, sanitized: source.sanitized };
-    })();
-    return this.#pyramid;
-  }
-
-  levels(): Promise<LevelResult[]> {
-    this.#levels ??= (async () => {
-      const r = this.recipe;
-      const results: (LevelResult | null)[] = [];
-      for (let m = 0; m < r.levels; m++) {
-        const entry = await this.cache.get(this.keys.levels[m]!);
-        if (entry === null) {
-          results.push(null);
-          continue;
-        }
-        const meta = entry.meta as { usedSamples: number; relativeErrorEstimate: number };
-        results.push({ level: m, size: Math.max(1, r.size >> m), data: toF32(entry.arrays[0]), usedSamples: meta.usedSamples, relativeErrorEstimate: meta.relativeErrorEstimate });
-      }
-      const missing = results.flatMap((res, m) => (res === null ? [m] : []));
-      if (missing.length > 0) {
-        const { pyramid } = await this.pyramid();
-        this.#check();
-        const computed: LevelResult[] = [];
-        if (missing[0] === 0) computed.push(mirrorLevel(pyramid));
-        const requests = missing.filter((m) => m > 0).map((m) => ({ level: m, size: Math.max(1, r.size >> m), roughness: r.roughness[m]!, samples: r.samples[m]! }));
-        computed.push(...(await this.#timed('specular', () => prefilterLevels(pyramid, requests, r, this.ctx))));
-        for (const level of computed) {
-          results[level.level] = level;
-          await this.cache.put(this.keys.levels[level.level]!, { meta: { usedSamples: level.usedSamples, relativeErrorEstimate: level.relativeErrorEstimate }, arrays: [level.data] });
-        }
-      }
-      return results as LevelResult[];
-    })();
-    return this.#levels;
-  }
-
-  sh(): Promise<ShResult> {
-    this.#sh ??= (async () => {
-      const entry = await this.cache.get(this.keys.sh);
-      if (entry !== null) {
-        const a = entry.arrays;
-        if (!(a[0] instanceof Float64Array) || !(a[1] instanceof Float64Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
-        return { radiance: a[0], irradiance: a[1] };
-      }
-      const { pyramid } = await this.pyramid();
-      const sh = await this.#timed('irradiance', async () => projectSh9(pyramid, 0, this.recipe.irradiance.shWindow, this.recipe.irradiance.shWindowWidth));
-      await this.cache.put(this.keys.sh, { meta: {}, arrays: [sh.radiance, sh.irradiance] });
-      return sh;
-    })();
-    return this.#sh;
-  }
-
-  irradianceCube(): Promise<Float32Array> {
-    this.#irr ??= (async () => {
-      const entry = await this.cache.get(this.keys.irradianceCube);
-      if (entry !== null) return toF32(entry.arrays[0]);
-      const sh = await this.sh();
-      const { pyramid } = await this.pyramid();
-      this.#check();
-      const cube = await this.#timed('irradiance', () => irradianceCube(pyramid, this.recipe.irradiance.cubeSize, this.recipe.irradiance.cubeSource, sh, this.ctx));
-      await this.cache.put(this.keys.irradianceCube, { meta: {}, arrays: [cube] });
-      return cube;
-    })();
-    return this.#irr;
-  }
-
-  async dfg(): Promise<DfgTable> {
-    const entry = await this.cache.get(this.keys.dfg);
-    if (entry !== null) {
-      const meta = entry.meta as { size: number; channels: number; channelNames: string[] };
-      return { ...meta, data: toF32(entry.arrays[0]) };
-    }
-    this.#check();
-    const table = await this.#timed('dfg', () => bakeDfgTable(this.recipe.dfg, this.ctx));
-    await this.cache.put(this.keys.dfg, { meta: { size: table.size, channels: table.channels, channelNames: table.channelNames }, arrays: [table.data] });
-    return table;
-  }
-
-  /** A finished file from the cache, or built and stored; `meta` carries manifest fragments. */
-  async file<M>(key: string, build: () => Promise<{ bytes: Uint8Array; meta: M }>): Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }> {
-    const entry = await this.cache.get(key);
-    if (entry !== null && entry.arrays[0] instanceof Uint8Array) return { bytes: entry.arrays[0], meta: entry.meta as M, fromCache: true };
-    const built = await build();
-    this.#check();
-    await this.cache.put(key, { meta: built.meta, arrays: [built.bytes] });
-    return { ...built, fromCache: false };
-  }
 }
 
 interface SpecularMeta { levels: ManifestLevel[]; sanitized: SanitizeCounts; clamped: number }
@@ -601,88 +387,6 @@ export class Baker {
   }
 }
 
-async function encodeTimed<T>(run: BakeRun, fn: () => T): Promise<T> {
-  // The Zstandard encoder is WebAssembly, loaded once (a few ms) before its first use.
-  if (run.recipe.output.supercompression === 'zstd') await initZstd();
-  const t0 = performance.now();
-  const bytes = fn();
-  run.timings.encode = (run.timings.encode ?? 0) + performance.now() - t0;
-  return bytes;
-}
-
-function checkOutputFolder(outDir: string, probe: string): void {
-  try {
-    const st = lstatSync(outDir);
-    if (st.isSymbolicLink()) throw unsafePath(outDir, 'the output folder is a symbolic link');
-    if (!st.isDirectory()) throw new LightkilnError('INVALID_OPTION', `output folder ${outDir} exists and is not a folder`);
-  } catch (error) {
-    if (error instanceof LightkilnError) throw error;
-    if ((error as { code?: string }).code !== 'ENOENT') throw toLightkilnError(error, outDir);
-  }
-  if (!SAFE_NAME.test(probe)) throw unsafePath(probe, 'not a plain file name');
-}
-
-/**
- * True when the manifest at `path` differs from `bytes` at most in the fields that change on every run
- * (timings and cache statistics): an unchanged rebake then leaves it alone, as it leaves the other files.
- */
-function sameManifest(path: string, bytes: Uint8Array): boolean {
-  try {
-    const strip = (text: string): string => {
-      const { timingsMs: _t, cache: _c, ...rest } = JSON.parse(text) as Record<string, unknown>;
-      return JSON.stringify(rest);
-    };
-    return strip(readFileSync(path, 'utf8')) === strip(new TextDecoder().decode(bytes));
-  } catch {
-    return false;
-  }
-}
-
-/**
- * Writes every artifact to a temp file first, then renames all of them; on failure removes the temps.
- * An artifact whose file already holds the same bytes (a manifest: the same but for timings and cache
- * statistics) is left alone (its mtime kept, for build systems).
- * Stale temp files of killed runs in the folder are swept first.
- */
-function writeAtomically(outDir: string, artifacts: readonly BakedArtifact[]): Set<string> {
-  try {
-    mkdirSync(outDir, { recursive: true });
-  } catch (error) {
-    throw writeError(outDir, error);
-  }
-  sweepStaleTempFiles(outDir);
-  const staged: StagedFile[] = [];
-  const kept = new Set<string>();
-  try {
-    for (const a of artifacts) {
-      if (!SAFE_NAME.test(a.name)) throw unsafePath(a.name, 'not a plain file name');
-      const final = join(outDir, a.name);
-      refuseSymlink(final);
-      if (sameContent(final, a.bytes) || (a.kind === 'manifest' && sameManifest(final, a.bytes))) {
-        kept.add(a.name);
-        continue;
-      }
-      staged.push(stageFile(final, a.bytes));
-    }
-  } catch (error) {
-    discardFiles(staged);
-    throw error;
-  }
-  commitFiles(staged);
-  return kept;
-}
-
-/** Event names of the cache keys of a bake. */
-function keyLabels(keys: Keys): Map<string, string> {
-  const m = new Map<string, string>([
-    [keys.source, 'source'], [keys.pyramid, 'pyramid'], [keys.sh, 'sh'], [keys.irradianceCube, 'irradiance cube'], [keys.dfg, 'dfg'],
-    [keys.specularFile, 'specular file'], [keys.irradianceFile, 'irradiance file'], [keys.lutFile, 'lut file'], [keys.preview, 'preview'],
-  ]);
-  keys.levels.forEach((k, i) => m.set(k, `level ${i}`));
-  for (const v of keys.views) m.set(v.key, `view ${v.name}`);
-  return m;
-}
-
 function isStore(value: unknown): value is CacheStore {
   if (typeof value !== 'object' || value === null) return false;
   const v = value as Record<string, unknown>;
@@ -694,4 +398,4 @@ export function createBaker(options: BakerOptions = {}): Baker {
   return new Baker(options);
 }
 
-export { MemoryStore, FolderStore };
+export { MemoryStore, FolderStore, STAGE_VERSIONS };

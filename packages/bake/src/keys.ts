@@ -1,0 +1,63 @@
+/**
+ * Cache keys of a bake: every stage and every file has a key, the SHA-256 of its name, its algorithm
+ * version and exactly the inputs it depends on (hash.ts), so a changed option recomputes only what
+ * depends on it.
+ */
+
+import { stageKey } from './hash.js';
+import type { ResolvedRecipe } from './recipe.js';
+
+/** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
+export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
+  source: 1, pyramid: 5, level: 5, sh: 1, irradianceCube: 1, dfg: 2, specularFile: 4, irradianceFile: 3, lutFile: 2, view: 1, preview: 1,
+});
+
+export interface Keys {
+  readonly inputHash: string;
+  readonly source: string;
+  readonly pyramid: string;
+  readonly levels: readonly string[];
+  readonly sh: string;
+  readonly irradianceCube: string;
+  readonly dfg: string;
+  readonly specularFile: string;
+  readonly irradianceFile: string;
+  readonly lutFile: string;
+  readonly views: readonly { name: string; key: string; kind: 'mirror' | 'irradiance'; format: 'hdr' | 'exr' }[];
+  readonly preview: string;
+}
+
+export function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
+  const V = STAGE_VERSIONS;
+  const source = stageKey('source', V.source!, { inputHash, layout: recipe.input.layout, sanitize: recipe.sanitize });
+  const pyramid = stageKey('pyramid', V.pyramid!, { source, size: recipe.size, rotationDeg: recipe.rotationDeg });
+  const levels = recipe.roughness.map((roughness, m) => stageKey('level', V.level!, {
+    pyramid, level: m, size: Math.max(1, recipe.size >> m), roughness, samples: m === 0 ? 0 : recipe.samples[m],
+    filtered: recipe.filtered, lodBias: recipe.lodBias, clampLuminance: recipe.clampLuminance, rotateSequence: recipe.rotateSequence,
+    quality: m === 0 ? 'mirror' : recipe.quality,
+  }));
+  const sh = stageKey('sh', V.sh!, { pyramid, window: recipe.irradiance.shWindow, width: recipe.irradiance.shWindowWidth });
+  const irradianceCube = stageKey('irradianceCube', V.irradianceCube!, { pyramid, size: recipe.irradiance.cubeSize, source: recipe.irradiance.cubeSource, sh: recipe.irradiance.cubeSource === 'sh9' ? sh : null });
+  const dfg = stageKey('dfg', V.dfg!, { size: recipe.dfg.size, samples: recipe.dfg.samples, multiscatter: recipe.dfg.multiscatter, cloth: recipe.dfg.cloth });
+  const fileOpts = { supercompression: recipe.output.supercompression };
+  const specularFile = stageKey('specularFile', V.specularFile!, { levels, format: recipe.output.specularFormat, ...fileOpts, source });
+  const irradianceFile = stageKey('irradianceFile', V.irradianceFile!, { irradianceCube, sh, format: recipe.output.irradianceFormat, ...fileOpts });
+  const lutFile = stageKey('lutFile', V.lutFile!, { dfg, ...fileOpts });
+  const views = recipe.output.views.flatMap((format) => (['mirror', 'irradiance'] as const).map((kind) => ({
+    name: `${recipe.name}.${kind}.${format}`, kind, format,
+    key: stageKey('view', V.view!, { of: kind === 'mirror' ? levels[0] : irradianceCube, format }),
+  })));
+  const preview = stageKey('preview', V.preview!, { specularFile, irradianceFile, lutFile: recipe.dfg.enabled ? lutFile : null, roughness: recipe.roughness });
+  return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views, preview };
+}
+
+/** Event names of the cache keys of a bake. */
+export function keyLabels(keys: Keys): Map<string, string> {
+  const m = new Map<string, string>([
+    [keys.source, 'source'], [keys.pyramid, 'pyramid'], [keys.sh, 'sh'], [keys.irradianceCube, 'irradiance cube'], [keys.dfg, 'dfg'],
+    [keys.specularFile, 'specular file'], [keys.irradianceFile, 'irradiance file'], [keys.lutFile, 'lut file'], [keys.preview, 'preview'],
+  ]);
+  keys.levels.forEach((k, i) => m.set(k, `level ${i}`));
+  for (const v of keys.views) m.set(v.key, `view ${v.name}`);
+  return m;
+}

@@ -1,0 +1,192 @@
+/** One bake's memoised stage getters over the cache (BakeRun), used by Baker.bake and Baker.lut. */
+
+import { initZstd } from '@lightkiln/codecs';
+import { toShared } from '@lightkiln/pool';
+import type { EntryCache } from './cache/entry.js';
+import { aborted, LightkilnError } from './errors.js';
+import type { BakeEvent } from './events.js';
+import type { Keys } from './keys.js';
+import type { ResolvedRecipe } from './recipe.js';
+import { warmPool, type StageContext } from './stages/context.js';
+import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
+import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
+import { nodeGeometryOnPool } from './stages/node-geometry.js';
+import { buildPyramid, pyramidLayout, type Pyramid } from './stages/pyramid.js';
+import { decodeSource, type InputFile, type SanitizeCounts, type SourceImage } from './stages/source.js';
+import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specular.js';
+
+const SOURCE_RELEASED: Promise<SourceImage> = Promise.reject(new LightkilnError('BAKE_FAILED', 'internal: the decoded source was read after the pyramid was built'));
+SOURCE_RELEASED.catch(() => undefined);
+
+export function toF32(a: unknown): Float32Array {
+  if (!(a instanceof Float32Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
+  return a;
+}
+
+/** One bake: memoised stage getters over the cache. */
+export class BakeRun {
+  readonly timings: Record<string, number> = {};
+  #source: Promise<SourceImage> | null = null;
+
+  #pyramid: Promise<{ pyramid: Pyramid; sanitized: SanitizeCounts }> | null = null;
+  #levels: Promise<LevelResult[]> | null = null;
+  #sh: Promise<ShResult> | null = null;
+  #irr: Promise<Float32Array> | null = null;
+
+  constructor(readonly recipe: ResolvedRecipe, readonly inputs: readonly InputFile[], readonly keys: Keys, readonly cache: EntryCache, readonly ctx: StageContext) {}
+
+  #check(): void {
+    if (this.ctx.signal?.aborted) throw aborted(this.ctx.signal.reason);
+  }
+
+  /** Structured events (BakeRunOptions.onEvent), already guarded by the caller. */
+  emit: (event: BakeEvent) => void = () => undefined;
+
+  async #timed<T>(stage: string, fn: () => Promise<T>): Promise<T> {
+    const t0 = performance.now();
+    this.emit({ type: 'stage', stage, state: 'started' });
+    try {
+      return await fn();
+    } finally {
+      const ms = performance.now() - t0;
+      this.timings[stage] = (this.timings[stage] ?? 0) + ms;
+      this.emit({ type: 'stage', stage, state: 'finished', ms: Math.round(ms * 10) / 10 });
+    }
+  }
+
+  source(): Promise<SourceImage> {
+    if (this.#source === null) {
+      warmPool(this.ctx);
+      // The quadrature's node geometry is built on a worker while this thread decodes.
+      nodeGeometryOnPool(this.recipe.size, this.ctx).catch(() => undefined);
+    }
+    this.#source ??= this.#timed('decode', async () => {
+      const entry = await this.cache.get(this.keys.source);
+      if (entry !== null) {
+        const meta = entry.meta as { kind: 'equirect' | 'cube'; width: number; height: number; size: number; sanitized: SanitizeCounts };
+        const data = toF32(entry.arrays[0]);
+        return meta.kind === 'equirect'
+          ? { kind: 'equirect', width: meta.width, height: meta.height, data, sanitized: meta.sanitized }
+          : { kind: 'cube', size: meta.size, data, sanitized: meta.sanitized };
+      }
+      this.#check();
+      const source = decodeSource(this.recipe, this.inputs);
+      await this.cache.put(this.keys.source, {
+        meta: source.kind === 'equirect' ? { kind: 'equirect', width: source.width, height: source.height, sanitized: source.sanitized } : { kind: 'cube', size: source.size, sanitized: source.sanitized },
+        arrays: [source.data],
+      });
+      return source;
+    });
+    return this.#source;
+  }
+
+  pyramid(): Promise<{ pyramid: Pyramid; sanitized: SanitizeCounts }> {
+    this.#pyramid ??= (async () => {
+      const entry = await this.cache.get(this.keys.pyramid);
+      if (entry !== null) {
+        const layout = pyramidLayout(this.recipe.size);
+        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
+      }
+      const source = await this.source();
+      this.#check();
+      const pyramid = await this.#timed('resample', () => buildPyramid(source, this.recipe.size, this.recipe.rotationDeg, this.ctx));
+      await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data, pyramid.centroids] });
+      // Nothing reads the decoded source after the pyramid (the pyramid is memoised): let it go.
+      this.#source = SOURCE_RELEASED;
+      return { pyramid, sanitized: source.sanitized };
+    })();
+    return this.#pyramid;
+  }
+
+  levels(): Promise<LevelResult[]> {
+    this.#levels ??= (async () => {
+      const r = this.recipe;
+      const results: (LevelResult | null)[] = [];
+      for (let m = 0; m < r.levels; m++) {
+        const entry = await this.cache.get(this.keys.levels[m]!);
+        if (entry === null) {
+          results.push(null);
+          continue;
+        }
+        const meta = entry.meta as { usedSamples: number; relativeErrorEstimate: number };
+        results.push({ level: m, size: Math.max(1, r.size >> m), data: toF32(entry.arrays[0]), usedSamples: meta.usedSamples, relativeErrorEstimate: meta.relativeErrorEstimate });
+      }
+      const missing = results.flatMap((res, m) => (res === null ? [m] : []));
+      if (missing.length > 0) {
+        const { pyramid } = await this.pyramid();
+        this.#check();
+        const computed: LevelResult[] = [];
+        if (missing[0] === 0) computed.push(mirrorLevel(pyramid));
+        const requests = missing.filter((m) => m > 0).map((m) => ({ level: m, size: Math.max(1, r.size >> m), roughness: r.roughness[m]!, samples: r.samples[m]! }));
+        computed.push(...(await this.#timed('specular', () => prefilterLevels(pyramid, requests, r, this.ctx))));
+        for (const level of computed) {
+          results[level.level] = level;
+          await this.cache.put(this.keys.levels[level.level]!, { meta: { usedSamples: level.usedSamples, relativeErrorEstimate: level.relativeErrorEstimate }, arrays: [level.data] });
+        }
+      }
+      return results as LevelResult[];
+    })();
+    return this.#levels;
+  }
+
+  sh(): Promise<ShResult> {
+    this.#sh ??= (async () => {
+      const entry = await this.cache.get(this.keys.sh);
+      if (entry !== null) {
+        const a = entry.arrays;
+        if (!(a[0] instanceof Float64Array) || !(a[1] instanceof Float64Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
+        return { radiance: a[0], irradiance: a[1] };
+      }
+      const { pyramid } = await this.pyramid();
+      const sh = await this.#timed('irradiance', async () => projectSh9(pyramid, 0, this.recipe.irradiance.shWindow, this.recipe.irradiance.shWindowWidth));
+      await this.cache.put(this.keys.sh, { meta: {}, arrays: [sh.radiance, sh.irradiance] });
+      return sh;
+    })();
+    return this.#sh;
+  }
+
+  irradianceCube(): Promise<Float32Array> {
+    this.#irr ??= (async () => {
+      const entry = await this.cache.get(this.keys.irradianceCube);
+      if (entry !== null) return toF32(entry.arrays[0]);
+      const sh = await this.sh();
+      const { pyramid } = await this.pyramid();
+      this.#check();
+      const cube = await this.#timed('irradiance', () => irradianceCube(pyramid, this.recipe.irradiance.cubeSize, this.recipe.irradiance.cubeSource, sh, this.ctx));
+      await this.cache.put(this.keys.irradianceCube, { meta: {}, arrays: [cube] });
+      return cube;
+    })();
+    return this.#irr;
+  }
+
+  async dfg(): Promise<DfgTable> {
+    const entry = await this.cache.get(this.keys.dfg);
+    if (entry !== null) {
+      const meta = entry.meta as { size: number; channels: number; channelNames: string[] };
+      return { ...meta, data: toF32(entry.arrays[0]) };
+    }
+    this.#check();
+    const table = await this.#timed('dfg', () => bakeDfgTable(this.recipe.dfg, this.ctx));
+    await this.cache.put(this.keys.dfg, { meta: { size: table.size, channels: table.channels, channelNames: table.channelNames }, arrays: [table.data] });
+    return table;
+  }
+
+  /** A finished file from the cache, or built and stored; `meta` carries manifest fragments. */
+  async file<M>(key: string, build: () => Promise<{ bytes: Uint8Array; meta: M }>): Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }> {
+    const entry = await this.cache.get(key);
+    if (entry !== null && entry.arrays[0] instanceof Uint8Array) return { bytes: entry.arrays[0], meta: entry.meta as M, fromCache: true };
+    const built = await build();
+    this.#check();
+    await this.cache.put(key, { meta: built.meta, arrays: [built.bytes] });
+    return { ...built, fromCache: false };
+  }
+}
+
+export async function encodeTimed<T>(run: BakeRun, fn: () => T): Promise<T> {
+  // The Zstandard encoder is WebAssembly, loaded once (a few ms) before its first use.
+  if (run.recipe.output.supercompression === 'zstd') await initZstd();
+  const t0 = performance.now();
+  const bytes = fn();
+  run.timings.encode = (run.timings.encode ?? 0) + performance.now() - t0;
+  return bytes;
+}
