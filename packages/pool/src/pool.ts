@@ -161,7 +161,6 @@ export class WorkerPool {
         settled = true;
         job.signal?.removeEventListener('abort', onAbort);
         this.#failActive.delete(finish);
-        if (process.env.LK_TRACE) console.error(`job ${job.kernel.name} ${tiles.length} tiles ${(performance.now() - started).toFixed(0)} ms`);
         if (error === null) resolve({ tiles: tiles.length, cost: total, elapsedMs: performance.now() - started });
         else reject(error);
       };

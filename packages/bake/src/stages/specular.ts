@@ -119,7 +119,7 @@ export interface SpecularOptions {
  * Opening criterion of the hierarchical quadrature: a node is accepted when its angular radius is below
  * QUADRATURE_THETA times the larger of its chord distance from n and QUADRATURE_GAMMA alpha.
  */
-export const QUADRATURE_THETA: number = Number(process.env.LK_THETA ?? 0.5);
+export const QUADRATURE_THETA = 0.5;
 export const QUADRATURE_GAMMA = 2;
 /** Nodes whose largest possible share of a texel's lobe integral is below this are not opened. */
 export const QUADRATURE_NEGLIGIBLE = 1e-3;
