@@ -24,7 +24,7 @@ interface LevelError { level: number; rmse: number; p999: number; estimate: numb
 async function measure(env: SunnySky, width: number, size: number, maxTexels = 1500): Promise<{ errors: LevelError[]; energy: { level0: number; source: number } }> {
   const image = renderEquirect(env, width, width / 2);
   const bytes = encodePfm({ width, height: width / 2, channels: 3, data: image });
-  const result = await baker.bake({ input: { bytes, name: 'sunny.pfm' }, size, output: { specularFormat: 'rgba32f' }, dfg: { enabled: false } });
+  const result = await baker.bake({ input: { bytes, name: 'sunny.pfm' }, size, output: { specularFormat: 'rgba32f', irradianceFormat: 'rgba32f' }, dfg: { enabled: false } });
   const spec = decodeKtx2(result.artifacts[0]!.bytes);
   const roughness = result.manifest.recipe.roughness;
   const d = new Float64Array(3);
@@ -48,6 +48,21 @@ async function measure(env: SunnySky, width: number, size: number, maxTexels = 1
     const s = errorStats(test, ref);
     errors.push({ level: m, rmse: s.rmse, p999: s.p999, estimate: result.manifest.levels[m]!.relativeErrorEstimate });
   }
+  // The irradiance cube (E, by the r = 1 quadrature) against pi times the exact r = 1 convolution.
+  const irr = decodeKtx2(result.artifacts[1]!.bytes).levels[0]!;
+  const ni = result.manifest.recipe.irradiance.cubeSize;
+  const irrTest: number[] = [];
+  const irrRef: number[] = [];
+  for (let t = 0; t < 6 * ni * ni; t++) {
+    const face = Math.floor(t / (ni * ni));
+    const rem = t - face * ni * ni;
+    cubeTexelCenterDirection(d, 0, face, rem % ni, Math.floor(rem / ni), ni);
+    exactPrefiltered(env, d[0]!, d[1]!, d[2]!, 1, exact);
+    irrRef.push(Math.PI * exact[0]!, Math.PI * exact[1]!, Math.PI * exact[2]!);
+    irrTest.push(irr.data[t * 4]!, irr.data[t * 4 + 1]!, irr.data[t * 4 + 2]!);
+  }
+  const irradiance = errorStats(irrTest, irrRef);
+  errors.push({ level: -1, rmse: irradiance.rmse, p999: irradiance.p999, estimate: 0 });
   // Energy: the level-0 cube against the source image, both as luminance times solid angle.
   const l0 = spec.levels[0]!;
   let level0 = 0;
@@ -92,7 +107,9 @@ describe('sunny skies against the exact convolution (targets: 1% RMSE and 2% p99
       // The resample keeps the source's energy exactly (sum of luminance x solid angle).
       expect(Math.abs(energy.level0 - energy.source) / energy.source).toBeLessThan(2e-5); // float32 files
       for (const e of errors) {
-        expect(e.p999, `level ${e.level} p99.9`).toBeLessThan(0.02);
+        // Level -1 is the irradiance cube (direct cosine convolution of the 64 x 64 level): where a sun
+        // sits on the horizon of n, E changes fast and the 3% p99.9 standing target applies.
+        expect(e.p999, `level ${e.level} p99.9`).toBeLessThan(e.level < 0 ? 0.03 : 0.02);
         // The RMSE is relative to the level's mean, so the few texels at the sun's peak dominate it
         // when the sun holds most of the energy (1e5 x a 1-degree disc is 5 x the rest of the sky, its
         // peak 800 x the level's mean): there a 0.3% error at the peak (the source floor) is 4% RMSE.
