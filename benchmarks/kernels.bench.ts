@@ -4,7 +4,7 @@
  */
 
 import { sharedFloat32, toShared, WorkerPool } from '@lightkiln/pool';
-import { buildPyramid, convolveIrradiance, reducePyramid, referenceQuadrature, referenceSpecular, resampleEquirect, sourceDirections, supersampleFactor } from '@lightkiln/bake/kernels';
+import { buildPyramid, convolutionSource, convolveIrradiance, reducePyramid, referenceQuadrature, referenceSpecular, resampleEquirect, supersampleFactor } from '@lightkiln/bake/kernels';
 import { record, runBench, syntheticSky } from './common.js';
 
 export async function kernelsBench(): Promise<void> {
@@ -19,7 +19,7 @@ export async function kernelsBench(): Promise<void> {
   const resampleParams = { size, supersample: k, rotCos: 1, rotSin: 0, srcWidth: W, srcHeight: W / 2 };
   const reduceParams = { size: 128, srcOffset: pyramid.offsets[0]!, dstOffset: pyramid.offsets[1]! };
   const level = 2; // 64^2 source faces for the convolution
-  const dirs = sourceDirections(pyramid, level);
+  const convSource = convolutionSource(pyramid, level);
   const irr = sharedFloat32(6 * 32 * 32 * 3);
   const n64 = pyramid.sizes[level]!;
   const irrParams = { srcOffset: pyramid.offsets[level]!, srcTexels: 6 * n64 * n64, size: 32, levelBegin: 0, dstOffset: 0 };
@@ -31,7 +31,7 @@ export async function kernelsBench(): Promise<void> {
   const results = await runBench('kernels, one thread', {
     'resample 2048x1024 -> 6x256^2': () => resampleEquirect({ src: source.data, dst: cube }, 0, 6 * size * size, resampleParams),
     'reduce 256 -> 128': () => reducePyramid({ pyramid: pyramid.data }, 0, 6 * 128 * 128, reduceParams),
-    'irradiance 6x32^2 from 6x64^2': () => convolveIrradiance({ pyramid: pyramid.data, srcDirs: dirs, dst: irr }, 0, 6 * 32 * 32, irrParams),
+    'irradiance 6x32^2 from 6x64^2': () => convolveIrradiance({ srcDirs: convSource, dst: irr }, 0, 6 * 32 * 32, irrParams),
     'reference 6x16^2 over 6x64^2': () => referenceSpecular({ pyramid: small.data, dst: refDst }, 0, 6 * 16 * 16, refParams),
   }, { iterations: 5 });
   record('resample (supersampled bilinear)', (6 * size * size * k * k) / (results['resample 2048x1024 -> 6x256^2']!.medianMs / 1000) / 1e6, 'M points/s/thread', `${k}x${k} points per texel`);

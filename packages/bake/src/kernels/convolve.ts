@@ -132,12 +132,11 @@ function referencePoint(acc: Float64Array, pyr: Float32Array, N: number, f: numb
  * so a constant environment gives exactly pi L despite texels straddling the horizon.
  */
 export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: number, params: ConvolveParams): void {
-  const pyr = buffers.pyramid as Float32Array;
-  const dirs = buffers.srcDirs as Float64Array;
+  // buffers.srcDirs: per source texel (x, y, z, dOmega, R dOmega, G dOmega, B dOmega, 0), float64.
+  const src = buffers.srcDirs as Float64Array;
   const dst = buffers.dst as Float32Array;
   const size = params.size;
   const count = params.srcTexels;
-  const src0 = params.srcOffset;
   const n = new Float64Array(3);
   for (let item = begin; item < end; item++) {
     const local = item - params.levelBegin;
@@ -149,15 +148,13 @@ export function convolveIrradiance(buffers: SharedBuffers, begin: number, end: n
     let g = 0;
     let b = 0;
     let wsum = 0;
-    for (let j = 0; j < count; j++) {
-      const nl = nx * dirs[4 * j]! + ny * dirs[4 * j + 1]! + nz * dirs[4 * j + 2]!;
-      if (nl <= 0) continue;
-      const w = nl * dirs[4 * j + 3]!;
-      const o = src0 + j * 3;
-      r += pyr[o]! * w;
-      g += pyr[o + 1]! * w;
-      b += pyr[o + 2]! * w;
-      wsum += w;
+    for (let j = 0, o = 0; j < count; j++, o += 8) {
+      let c = nx * src[o]! + ny * src[o + 1]! + nz * src[o + 2]!;
+      c = c > 0 ? c : 0;
+      r += c * src[o + 4]!;
+      g += c * src[o + 5]!;
+      b += c * src[o + 6]!;
+      wsum += c * src[o + 3]!;
     }
     const o = params.dstOffset + local * 3;
     const k = Math.PI / wsum;

@@ -19,4 +19,4 @@ export type { Pyramid } from '../stages/pyramid.js';
 export { decodeSource } from '../stages/source.js';
 export type { SourceImage } from '../stages/source.js';
 export { bakeDfgTable } from '../stages/dfg.js';
-export { projectSh9, irradianceCube } from '../stages/irradiance.js';
+export { projectSh9, irradianceCube, convolutionSource } from '../stages/irradiance.js';

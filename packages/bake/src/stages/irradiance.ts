@@ -8,7 +8,7 @@ import {
   accumulateSh9, applySh9BandWeights, convolveSh9Lambert, cubeFaceSolidAngleTable, cubeTexelCenterDirection, evalSh9Rgb, sh9WindowWeights,
   type Sh9WindowKind,
 } from '@lightkiln/math';
-import { sharedFloat32 } from '@lightkiln/pool';
+import { sharedFloat32, sharedFloat64 } from '@lightkiln/pool';
 import type { ConvolveParams } from '../kernels/convolve.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
 import { levelView, sourceDirections, type Pyramid } from './pyramid.js';
@@ -51,6 +51,28 @@ export function convolutionSourceLevel(pyramid: Pyramid): number {
   return level;
 }
 
+/**
+ * The source table of kernels/convolve.ts convolveIrradiance for a pyramid level: per texel its centre
+ * direction, exact solid angle, and RGB radiance times that solid angle (eight float64, shared memory).
+ */
+export function convolutionSource(pyramid: Pyramid, level: number): Float64Array {
+  const n = pyramid.sizes[level]!;
+  const geometry = sourceDirections(pyramid, level);
+  const src0 = pyramid.offsets[level]!;
+  const out = sharedFloat64(6 * n * n * 8);
+  for (let j = 0; j < 6 * n * n; j++) {
+    const w = geometry[4 * j + 3]!;
+    out[8 * j] = geometry[4 * j]!;
+    out[8 * j + 1] = geometry[4 * j + 1]!;
+    out[8 * j + 2] = geometry[4 * j + 2]!;
+    out[8 * j + 3] = w;
+    out[8 * j + 4] = pyramid.data[src0 + 3 * j]! * w;
+    out[8 * j + 5] = pyramid.data[src0 + 3 * j + 1]! * w;
+    out[8 * j + 6] = pyramid.data[src0 + 3 * j + 2]! * w;
+  }
+  return out;
+}
+
 export async function irradianceCube(pyramid: Pyramid, size: number, source: 'convolution' | 'sh9', sh: ShResult, ctx: StageContext): Promise<Float32Array> {
   const texels = 6 * size * size;
   if (source === 'sh9') {
@@ -71,12 +93,12 @@ export async function irradianceCube(pyramid: Pyramid, size: number, source: 'co
   }
   const level = convolutionSourceLevel(pyramid);
   const n = pyramid.sizes[level]!;
-  const dirs = sourceDirections(pyramid, level);
+  const dirs = convolutionSource(pyramid, level);
   const dst = sharedFloat32(texels * 3);
   const params: ConvolveParams = { srcOffset: pyramid.offsets[level]!, srcTexels: 6 * n * n, size, levelBegin: 0, dstOffset: 0 };
   await ctx.pool.run({
     kernel: kernel('convolveIrradiance'),
-    buffers: { pyramid: pyramid.data, srcDirs: dirs, dst },
+    buffers: { srcDirs: dirs, dst },
     segments: [0, 1, 2, 3, 4, 5].map((f) => ({ begin: f * size * size, end: (f + 1) * size * size, costPerItem: 6 * n * n, rowLength: size, label: `irradiance face ${f}` })),
     params,
     ...jobOptions(ctx, 'irradiance'),
