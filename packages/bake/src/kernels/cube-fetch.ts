@@ -3,7 +3,7 @@
  * size n is 6 n^2 RGB float32 texels, face-major, rows top (t = 0) first: ((face n + y) n + x) 3.
  */
 
-import { CUBE_FACE_BASIS } from '@lightkiln/math';
+import { CUBE_FACE_BASIS, directionToCubeFace } from '@lightkiln/math';
 
 /**
  * Bilinear fetch from one face of a cube level at face coordinates (s, t) in [0, 1], clamped to the face
@@ -40,33 +40,18 @@ export function fetchFaceBilinear(acc: Float64Array, cube: Float32Array, levelOf
  * face: the tap's texel centre on the face's extended plane, then the face that direction selects (the
  * Vulkan specification's cube-map edge handling); returns the float index of the texel's red channel.
  */
+const wrapSelection = new Float64Array(3);
+
 function wrappedTap(levelOffset: number, n: number, face: number, x: number, y: number): number {
   const u = (2 * (x + 0.5)) / n - 1;
   const v = (2 * (y + 0.5)) / n - 1;
   const b = face * 9;
   const B = CUBE_FACE_BASIS;
-  const dx = B[b]! + u * B[b + 3]! + v * B[b + 6]!;
-  const dy = B[b + 1]! + u * B[b + 4]! + v * B[b + 7]!;
-  const dz = B[b + 2]! + u * B[b + 5]! + v * B[b + 8]!;
-  const ax = dx < 0 ? -dx : dx;
-  const ay = dy < 0 ? -dy : dy;
-  const az = dz < 0 ? -dz : dz;
-  let f: number;
-  let sc: number;
-  let tc: number;
-  let ma: number;
-  if (az >= ay && az >= ax) {
-    ma = az; tc = -dy;
-    if (dz >= 0) { f = 4; sc = dx; } else { f = 5; sc = -dx; }
-  } else if (ay >= ax) {
-    ma = ay; sc = dx;
-    if (dy >= 0) { f = 2; tc = dz; } else { f = 3; tc = -dz; }
-  } else {
-    ma = ax; tc = -dy;
-    if (dx >= 0) { f = 0; sc = -dz; } else { f = 1; sc = dz; }
-  }
-  let tx = Math.floor((sc / ma + 1) * 0.5 * n);
-  let ty = Math.floor((tc / ma + 1) * 0.5 * n);
+  // The slow path (half a texel from an edge): math's face selection, same table and ties as the kernels.
+  directionToCubeFace(wrapSelection, 0, B[b]! + u * B[b + 3]! + v * B[b + 6]!, B[b + 1]! + u * B[b + 4]! + v * B[b + 7]!, B[b + 2]! + u * B[b + 5]! + v * B[b + 8]!);
+  const f = wrapSelection[0]!;
+  let tx = Math.floor(wrapSelection[1]! * n);
+  let ty = Math.floor(wrapSelection[2]! * n);
   if (tx < 0) tx = 0; else if (tx > n - 1) tx = n - 1;
   if (ty < 0) ty = 0; else if (ty > n - 1) ty = n - 1;
   return levelOffset + ((f * n + ty) * n + tx) * 3;
