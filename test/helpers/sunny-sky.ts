@@ -1,6 +1,6 @@
 /**
  * Sunny skies of our own making for the accuracy tests: a smooth analytic sky plus a sun disc, rendered
- * into an equirect image by this file (pixel averages, the disc by 16 x 16 coverage points), and the exact
+ * into an equirect image by this file (pixel averages, the disc by 64 x 64 coverage points), and the exact
  * split-sum prefilter LD(n) = integral L(l) D(h) max(n.l, 0) dl / integral D(h) max(n.l, 0) dl computed
  * here by composite Gauss-Legendre quadrature (Abramowitz & Stegun 1964, table 25.4) over the analytic
  * function. It shares no code with the bake: no pyramid, no cube, no kernel.
@@ -62,7 +62,7 @@ function equirectDirection(u: number, v: number, out: Float64Array): void {
   out[2] = -Math.sin(theta) * Math.cos(phi);
 }
 
-/** The sky as a W x H equirect RGB float32 image: per pixel the solid-angle mean of 4 x 4 points, 16 x 16 near the sun. */
+/** The sky as a W x H equirect RGB float32 image: per pixel the solid-angle mean of 4 x 4 points, 64 x 64 near the sun. */
 export function renderEquirect(env: SunnySky, width: number, height: number): Float32Array {
   const data = new Float32Array(width * height * 3);
   const d = new Float64Array(3);
@@ -73,7 +73,7 @@ export function renderEquirect(env: SunnySky, width: number, height: number): Fl
     for (let i = 0; i < width; i++) {
       equirectDirection((i + 0.5) / width, (j + 0.5) / height, d);
       const near = s !== null && d[0]! * s.direction[0] + d[1]! * s.direction[1] + d[2]! * s.direction[2] > cosNear;
-      const k = near ? 16 : 4;
+      const k = near ? 64 : 4;
       let r = 0; let g = 0; let b = 0; let w = 0;
       for (let sy = 0; sy < k; sy++) {
         const v = (j + (sy + 0.5) / k) / height;

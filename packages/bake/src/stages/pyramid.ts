@@ -64,6 +64,33 @@ export function splatSubcells(width: number, height: number, size: number): numb
   return Math.max(2, 2 * Math.ceil((pixelAngle * size) / 2));
 }
 
+/**
+ * Luminance above which a source pixel counts as a sun for the splat's finer cut: 32 x the source's mean
+ * (solid-angle weighted), so at most 1/32 of the sphere qualifies. Rec. 709 luminance (ITU-R BT.709-6).
+ */
+export function brightThreshold(data: Float32Array, width: number, height: number): number {
+  let sum = 0;
+  let weight = 0;
+  for (let j = 0; j < height; j++) {
+    const w = Math.cos((j * Math.PI) / height) - Math.cos(((j + 1) * Math.PI) / height);
+    let row = 0;
+    for (let o = j * width * 3, e = o + width * 3; o < e; o += 3) row += 0.2126 * data[o]! + 0.7152 * data[o + 1]! + 0.0722 * data[o + 2]!;
+    sum += w * row;
+    weight += w * width;
+  }
+  const mean = sum / weight;
+  return mean > 0 ? 32 * mean : Infinity;
+}
+
+/**
+ * How many times finer the splat cuts bright pixels: fine sub-cells of at most an eighth of the smallest
+ * texel (about 0.94 / size radians wide, at a cube corner).
+ */
+export function brightRefinement(width: number, height: number, size: number, subcells: number): number {
+  const pixelAngle = Math.max(Math.PI / height, (2 * Math.PI) / width);
+  return Math.max(1, Math.ceil((8.5 * pixelAngle * size) / subcells));
+}
+
 export async function buildPyramid(source: SourceImage, size: number, rotationDeg: number, ctx: StageContext): Promise<Pyramid> {
   const layout = pyramidLayout(size);
   const data = sharedFloat32(layout.length);
@@ -72,9 +99,12 @@ export async function buildPyramid(source: SourceImage, size: number, rotationDe
   const angle = (rotationDeg * Math.PI) / 180;
   const faceItems = size * size;
   if (source.kind === 'equirect') {
+    const subcells = splatSubcells(source.width, source.height, size);
     const params: SplatParams = {
-      size, srcWidth: source.width, srcHeight: source.height, subcells: splatSubcells(source.width, source.height, size),
+      size, srcWidth: source.width, srcHeight: source.height, subcells,
       rotCos: Math.cos(angle), rotSin: Math.sin(angle),
+      brightLuminance: brightThreshold(source.data, source.width, source.height),
+      brightRefinement: brightRefinement(source.width, source.height, size, subcells),
     };
     // One tile a half face: each scans the part of the source that can land on it (a cap half reads a
     // sixth of the sub-cells, a side half a sixteenth).

@@ -1,0 +1,103 @@
+/**
+ * The equirect splat's two paths: ordinary pixels (2 x 2 sub-cells carrying the bilinear reconstruction,
+ * landing code inlined in the loop) and bright pixels (cut finer, each sub-cell carrying its pixel's value,
+ * landing through Landing.land). Both must put the same light in the same texels: on a smooth sky, where
+ * the bilinear and the pixel-square reconstructions agree to second order, every texel and every
+ * luminance centroid of the two paths must agree closely; each path must keep the energy of its own
+ * reconstruction up to the footprint fill (the pixel-square energy, sum of pixel x exact solid angle, is the check: common practice
+ * for equirect images).
+ */
+
+import { describe, expect, it } from 'vitest';
+import { sharedFloat32, toShared } from '@lightkiln/pool';
+import { cubeTexelSolidAngle } from '@lightkiln/math';
+import { nodeGeometry, splatEquirect, splatSubcells, type SplatParams } from '@lightkiln/bake/kernels';
+
+const W = 256;
+const H = 128;
+const size = 32;
+
+function smoothSky(): Float32Array {
+  const data = new Float32Array(W * H * 3);
+  for (let j = 0; j < H; j++) {
+    for (let i = 0; i < W; i++) {
+      const o = (j * W + i) * 3;
+      const u = (2 * Math.PI * (i + 0.5)) / W;
+      const v = (Math.PI * (j + 0.5)) / H;
+      data[o] = 1 + 0.4 * Math.sin(u) * Math.sin(v);
+      data[o + 1] = 0.8 + 0.3 * Math.cos(v);
+      data[o + 2] = 0.6 + 0.2 * Math.cos(2 * u) * Math.sin(v);
+    }
+  }
+  return data;
+}
+
+function splat(src: Float32Array, brightLuminance: number, brightRefinement: number): { level0: Float32Array; centroids: Float32Array } {
+  const pyramid = sharedFloat32(6 * size * size * 3);
+  const centroids = sharedFloat32(6 * size * size * 3);
+  const params: SplatParams = { size, srcWidth: W, srcHeight: H, subcells: splatSubcells(W, H, size), rotCos: 1, rotSin: 0, brightLuminance, brightRefinement };
+  const buffers = { src: toShared(src), pyramid, centroids, geometry: nodeGeometry(size).data };
+  // Half faces, as the stage tiles it.
+  for (let h = 0; h < 12; h++) splatEquirect(buffers, (h * size * size) / 2, ((h + 1) * size * size) / 2, params);
+  return { level0: pyramid, centroids };
+}
+
+function energy(level0: Float32Array): number {
+  let e = 0;
+  for (let t = 0; t < 6 * size * size; t++) {
+    const r = t % (size * size);
+    e += cubeTexelSolidAngle(r % size, Math.floor(r / size), size) * (0.2126 * level0[t * 3]! + 0.7152 * level0[t * 3 + 1]! + 0.0722 * level0[t * 3 + 2]!);
+  }
+  return e;
+}
+
+describe('equirect splat: the ordinary and the bright path agree', () => {
+  it('puts the same light in the same texels on a smooth sky', () => {
+    const src = smoothSky();
+    const ordinary = splat(src, Infinity, 1);
+    // Threshold 0: every pixel takes the bright path, at the ordinary sub-cell size (refinement 1).
+    const bright = splat(src, 0, 1);
+    let worst = 0;
+    let worstCentroid = 0;
+    for (let i = 0; i < ordinary.level0.length; i++) {
+      worst = Math.max(worst, Math.abs(ordinary.level0[i]! - bright.level0[i]!) / ordinary.level0[i]!);
+      worstCentroid = Math.max(worstCentroid, Math.abs(ordinary.centroids[i]! - bright.centroids[i]!));
+    }
+    // A texel is about 2 x 2 pixels: the two reconstructions differ by the sky's curvature over a pixel.
+    expect(worst).toBeLessThan(2e-3);
+    // Centroid offsets are in face-frame units (a texel is 2 / 32 wide): agree to 1/100 of a texel.
+    expect(worstCentroid).toBeLessThan(6e-4);
+  });
+
+  it('keeps the pixel-square energy on the bright path, at any refinement', () => {
+    const src = smoothSky();
+    let exact = 0;
+    for (let j = 0; j < H; j++) {
+      const omega = ((2 * Math.PI) / W) * (Math.cos((j * Math.PI) / H) - Math.cos(((j + 1) * Math.PI) / H));
+      for (let i = 0; i < W; i++) {
+        const o = (j * W + i) * 3;
+        exact += omega * (0.2126 * src[o]! + 0.7152 * src[o + 1]! + 0.0722 * src[o + 2]!);
+      }
+    }
+    // Within 5e-5: the footprint fill trades the sky's local minimum between neighbours (measured 1.5e-5).
+    for (const refinement of [1, 3, 4]) {
+      expect(Math.abs(energy(splat(src, 0, refinement).level0) / exact - 1)).toBeLessThan(5e-5);
+    }
+    // The ordinary path keeps the bilinear reconstruction's energy, within 1e-4 of the squares' here.
+    expect(Math.abs(energy(splat(src, Infinity, 1).level0) / exact - 1)).toBeLessThan(1e-4);
+  });
+
+  it('keeps a sun one pixel wide where the image puts it', () => {
+    const src = smoothSky();
+    // A 1e4 x pixel at row 40, column 100.
+    const p = (40 * W + 100) * 3;
+    src[p] = 1e4; src[p + 1] = 1e4; src[p + 2] = 1e4;
+    const { level0 } = splat(src, 32, 4);
+    const base = splat(smoothSky(), 32, 4).level0;
+    const pixelOmega = ((2 * Math.PI) / W) * (Math.cos((40 * Math.PI) / H) - Math.cos((41 * Math.PI) / H));
+    const added = energy(level0) - energy(base);
+    const expected = pixelOmega * (1e4 - (0.2126 * 1 + 0.7152 * 0.8 + 0.0722 * 0.6));
+    // The added energy is the sun's, give or take the sky under it (the sky value of that pixel).
+    expect(Math.abs(added - expected) / expected).toBeLessThan(2e-4);
+  });
+});
