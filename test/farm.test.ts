@@ -57,9 +57,9 @@ async function waitFor(cond: () => boolean, ms: number): Promise<void> {
   }
 }
 
-function submit(batch: string, out: string, queue: string): Promise<{ status: number; stdout: string; stderr: string }> {
+function submit(batch: string, out: string, queue: string, extra: readonly string[] = []): Promise<{ status: number; stdout: string; stderr: string }> {
   return new Promise((resolve) => {
-    const child = spawn(process.execPath, [cli, 'farm', 'submit', '--batch', batch, '--redis', redis!.url, '--remote-cache', dav!.url, '--queue', queue, '--out', out, '--json'], { stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, [cli, 'farm', 'submit', '--batch', batch, '--redis', redis!.url, '--remote-cache', dav!.url, '--queue', queue, '--out', out, '--json', ...extra], { stdio: ['ignore', 'pipe', 'pipe'] });
     let stdout = '';
     let stderr = '';
     child.stdout!.on('data', (c: Buffer) => { stdout += c.toString(); });
@@ -81,9 +81,16 @@ describe.runIf(enabled)('farm (BullMQ on redis-server, shared cache on nginx Web
     const a = startWorker(0, 'q1');
     const b = startWorker(1, 'q1');
     await waitFor(() => [a, b].every((w) => w.log.some((l) => l.includes('ready'))), 20_000);
-    const [first, second] = await Promise.all([submit(batch, join(work, 'out1'), 'q1'), submit(batch, join(work, 'out2'), 'q1')]);
+    const [first, second] = await Promise.all([submit(batch, join(work, 'out1'), 'q1'), submit(batch, join(work, 'out2'), 'q1', ['--events'])]);
     expect(first.status, first.stderr).toBe(0);
     expect(second.status, second.stderr).toBe(0);
+    // --events: JSON lines only; per probe one submitted and one completed job event, four artifacts.
+    const events = second.stderr.trim().split('\n').map((l) => JSON.parse(l) as { probe: string; type: string; state?: string });
+    for (const n of names) {
+      const mine = events.filter((e) => e.probe === n);
+      expect(mine.filter((e) => e.type === 'job').map((e) => e.state)).toEqual(['submitted', 'completed']);
+      expect(mine.filter((e) => e.type === 'artifact')).toHaveLength(4);
+    }
     const baked = [...a.log, ...b.log].filter((l) => /baked \w+$/.test(l));
     expect(baked.map((l) => l.split(' ').pop()).sort()).toEqual([...names].sort());
     const local = spawnSync(process.execPath, [cli, 'bake', '--batch', batch, '--out', join(work, 'local'), '--no-cache', '--quiet']);

@@ -72,5 +72,7 @@ run "lightkiln <command> --help" for a command's options`,
   --remote-cache URL   the shared cache server (HTTP build-cache protocol)
   --queue NAME         queue name                                              default lightkiln-bakes
   --lock-ms MS         worker: job lock; a dead worker's job moves on within 1.5x  default 10000
+  --events             submit: JSON lines on stderr: job (submitted, completed, failed), progress,
+                       artifact events
   --json, --quiet`,
 };

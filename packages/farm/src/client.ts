@@ -18,6 +18,8 @@ export interface FarmClientOptions {
   readonly queue?: string;
   /** Progress lines (probe, stage, fraction) while waiting. */
   readonly onProgress?: (probe: string, progress: { stage: string; done: number; total: number }) => void;
+  /** Called once per job when it is on the queue (or found there already: same id, same bake). */
+  readonly onSubmitted?: (probe: string, jobId: string) => void;
   /** Milliseconds to wait for one job before giving up; default 1 hour. */
   readonly jobTimeoutMs?: number;
 }
@@ -66,6 +68,7 @@ export class FarmClient {
       // A job id that exists (queued, running or kept after completion) is not added twice.
       await this.#queue.add('bake', data, { jobId: id, attempts: 2, backoff: { type: 'fixed', delay: 1000 }, removeOnComplete: { age: 24 * 3600 }, removeOnFail: { age: 24 * 3600 } });
       jobs.push({ id, probe });
+      this.#options.onSubmitted?.(probe, id);
     }
     const onProgress = this.#options.onProgress;
     const progressListener = ({ jobId, data }: { jobId: string; data: unknown }): void => {

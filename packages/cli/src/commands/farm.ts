@@ -12,7 +12,7 @@ import { BAKE_SPEC, preflight, recipesFromArgs } from './bake.js';
 
 const FARM_FLAGS = { redis: { type: 'string' }, 'remote-cache': { type: 'string' }, queue: { type: 'string' } } as const;
 const WORKER_SPEC = { ...FARM_FLAGS, threads: { type: 'number' }, 'lock-ms': { type: 'number' }, 'cache-dir': { type: 'string' }, json: { type: 'boolean' }, quiet: { type: 'boolean' }, help: { type: 'boolean' } } as const;
-const { threads: _t, cache: _c, 'cache-dir': _cd, events: _e, depfile: _d, 'remote-cache': _r, ...SUBMIT_BASE } = BAKE_SPEC;
+const { threads: _t, cache: _c, 'cache-dir': _cd, depfile: _d, 'remote-cache': _r, ...SUBMIT_BASE } = BAKE_SPEC;
 const SUBMIT_SPEC = { ...SUBMIT_BASE, ...FARM_FLAGS } as const;
 
 function required(flags: Record<string, unknown>, name: string, command: string): string {
@@ -65,10 +65,22 @@ async function farmSubmit(argv: readonly string[], ctx: CommandContext): Promise
   const recipes: Recipe[] = recipesFromArgs('farm', positionals, flags);
   preflight(recipes, out, flags.batch as string | undefined);
   const lastShown = new Map<string, number>();
+  // --events: JSON lines on stderr (the bake's progress and artifact events, plus `job` events:
+  // state 'submitted' | 'completed' | 'failed', with worker, fromCache and ms on completion).
+  const events = flags.events === true;
+  const start = performance.now();
+  const emit = (probe: string, event: Record<string, unknown>): void => {
+    if (events) ctx.stderr(`${JSON.stringify({ t: Math.round(performance.now() - start), probe, ...event })}\n`);
+  };
   const client = new FarmClient({
     redis, remoteCache,
     ...(flags.queue !== undefined ? { queue: flags.queue as string } : {}),
+    onSubmitted: (probe, jobId) => emit(probe, { type: 'job', state: 'submitted', jobId }),
     onProgress: (probe, p) => {
+      if (events) {
+        emit(probe, { type: 'progress', stage: p.stage, done: p.done, total: p.total });
+        return;
+      }
       if (ctx.quiet) return;
       const now = Date.now();
       if (now - (lastShown.get(probe) ?? 0) < 500) return;
@@ -92,13 +104,18 @@ async function farmSubmit(argv: readonly string[], ctx: CommandContext): Promise
     if (!r.ok || r.result === undefined || r.files === undefined) {
       failed++;
       probes.push({ probe: r.probe, ok: false, error: { code: 'BAKE_FAILED', message: r.error ?? 'failed' } });
-      if (!ctx.quiet) ctx.stderr(`lightkiln farm: error: ${r.probe}: ${r.error ?? 'failed'}\n`);
+      emit(r.probe, { type: 'job', state: 'failed', message: r.error ?? 'failed' });
+      if (!ctx.quiet && !events) ctx.stderr(`lightkiln farm: error: ${r.probe}: ${r.error ?? 'failed'}\n`);
       continue;
     }
     writeFilesAtomic(r.result.artifacts.map((a) => ({ path: join(out, a.name), bytes: r.files!.get(a.name)! })));
-    for (const a of r.result.artifacts) artifacts.push({ kind: a.kind, path: join(out, a.name), sha256: a.sha256, probe: r.probe });
+    emit(r.probe, { type: 'job', state: 'completed', worker: r.result.worker, fromCache: r.result.fromCache, ms: r.result.ms });
+    for (const a of r.result.artifacts) {
+      artifacts.push({ kind: a.kind, path: join(out, a.name), sha256: a.sha256, probe: r.probe });
+      emit(r.probe, { type: 'artifact', kind: a.kind, name: a.name, path: join(out, a.name), sha256: a.sha256, bytes: r.files!.get(a.name)!.length, written: true, fromCache: r.result.fromCache });
+    }
     probes.push({ probe: r.probe, ok: true, ms: r.result.ms, worker: r.result.worker, fromCache: r.result.fromCache });
-    if (!ctx.quiet) ctx.stderr(`lightkiln farm: ${r.probe} done on ${r.result.worker}${r.result.fromCache ? ' (from cache)' : ''}\n`);
+    if (!ctx.quiet && !events) ctx.stderr(`lightkiln farm: ${r.probe} done on ${r.result.worker}${r.result.fromCache ? ' (from cache)' : ''}\n`);
   }
   if (ctx.json) printJson(ctx, { artifacts, probes, failed });
   else if (!ctx.quiet) for (const a of artifacts) ctx.stdout(`${a.kind.padEnd(10)} ${a.path}\n`);
