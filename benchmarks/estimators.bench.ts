@@ -53,7 +53,7 @@ export async function estimatorsBench(): Promise<void> {
   const levels = Math.log2(size) + 1;
   const requests: LevelRequest[] = Array.from({ length: levels - 1 }, (_, i) => {
     const r = (i + 1) / (levels - 1);
-    return { level: i + 1, size: size >> (i + 1), roughness: r, samples: Math.max(8, Math.round((256 + 768 * r) / 8) * 8) };
+    return { level: i + 1, faceSize: size >> (i + 1), perceptualRoughness: r, requestedSamples: Math.max(8, Math.round((256 + 768 * r) / 8) * 8) };
   });
   const common = { filtered: true, lodBias: 0.5, clampLuminance: 0, rotateSequence: false };
   let quadrature: LevelResult[] = [];

@@ -5,7 +5,7 @@
  */
 
 import { stageKey } from './hash.js';
-import type { ResolvedRecipe } from './recipe.js';
+import { levelDescriptors, type ResolvedRecipe } from './recipe.js';
 
 /** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
 export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
@@ -27,37 +27,31 @@ export interface Keys {
   readonly preview: string;
 }
 
+/** Keys of the DFG table and its file: they depend on the table's options only (no input). */
+export function lutKeys(options: ResolvedRecipe['dfg'], supercompression: ResolvedRecipe['output']['supercompression']): { dfg: string; lutFile: string } {
+  const dfg = stageKey('dfg', STAGE_VERSIONS.dfg!, { size: options.size, samples: options.samples, multiscatter: options.multiscatter, cloth: options.cloth });
+  return { dfg, lutFile: stageKey('lutFile', STAGE_VERSIONS.lutFile!, { dfg, supercompression }) };
+}
+
 export function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
   const V = STAGE_VERSIONS;
   const source = stageKey('source', V.source!, { inputHash, layout: recipe.input.layout, sanitize: recipe.sanitize });
   const pyramid = stageKey('pyramid', V.pyramid!, { source, size: recipe.size, rotationDeg: recipe.rotationDeg });
-  const levels = recipe.roughness.map((roughness, m) => stageKey('level', V.level!, {
-    pyramid, level: m, size: Math.max(1, recipe.size >> m), roughness, samples: m === 0 ? 0 : recipe.samples[m],
+  const levels = levelDescriptors(recipe).map((d) => stageKey('level', V.level!, {
+    pyramid, level: d.level, size: d.faceSize, roughness: d.perceptualRoughness, samples: d.requestedSamples,
     filtered: recipe.filtered, lodBias: recipe.lodBias, clampLuminance: recipe.clampLuminance, rotateSequence: recipe.rotateSequence,
-    quality: m === 0 ? 'mirror' : recipe.quality,
+    quality: d.level === 0 ? 'mirror' : recipe.quality,
   }));
   const sh = stageKey('sh', V.sh!, { pyramid, window: recipe.irradiance.shWindow, width: recipe.irradiance.shWindowWidth });
   const irradianceCube = stageKey('irradianceCube', V.irradianceCube!, { pyramid, size: recipe.irradiance.cubeSize, source: recipe.irradiance.cubeSource, sh: recipe.irradiance.cubeSource === 'sh9' ? sh : null });
-  const dfg = stageKey('dfg', V.dfg!, { size: recipe.dfg.size, samples: recipe.dfg.samples, multiscatter: recipe.dfg.multiscatter, cloth: recipe.dfg.cloth });
+  const { dfg, lutFile } = lutKeys(recipe.dfg, recipe.output.supercompression);
   const fileOpts = { supercompression: recipe.output.supercompression };
   const specularFile = stageKey('specularFile', V.specularFile!, { levels, format: recipe.output.specularFormat, ...fileOpts, source });
   const irradianceFile = stageKey('irradianceFile', V.irradianceFile!, { irradianceCube, sh, format: recipe.output.irradianceFormat, ...fileOpts });
-  const lutFile = stageKey('lutFile', V.lutFile!, { dfg, ...fileOpts });
   const views = recipe.output.views.flatMap((format) => (['mirror', 'irradiance'] as const).map((kind) => ({
     name: `${recipe.name}.${kind}.${format}`, kind, format,
     key: stageKey('view', V.view!, { of: kind === 'mirror' ? levels[0] : irradianceCube, format }),
   })));
   const preview = stageKey('preview', V.preview!, { specularFile, irradianceFile, lutFile: recipe.dfg.enabled ? lutFile : null, roughness: recipe.roughness });
   return { inputHash, source, pyramid, levels, sh, irradianceCube, dfg, specularFile, irradianceFile, lutFile, views, preview };
-}
-
-/** Event names of the cache keys of a bake. */
-export function keyLabels(keys: Keys): Map<string, string> {
-  const m = new Map<string, string>([
-    [keys.source, 'source'], [keys.pyramid, 'pyramid'], [keys.sh, 'sh'], [keys.irradianceCube, 'irradiance cube'], [keys.dfg, 'dfg'],
-    [keys.specularFile, 'specular file'], [keys.irradianceFile, 'irradiance file'], [keys.lutFile, 'lut file'], [keys.preview, 'preview'],
-  ]);
-  keys.levels.forEach((k, i) => m.set(k, `level ${i}`));
-  for (const v of keys.views) m.set(v.key, `view ${v.name}`);
-  return m;
 }

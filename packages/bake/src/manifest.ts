@@ -1,7 +1,7 @@
 /** The `<probe>.probe.json` manifest (the repo README, "The library"): everything a consumer needs without the code. */
 
-import type { ResolvedRecipe } from './recipe.js';
-import type { SanitizeCounts } from './stages/source.js';
+import { roughnessToLodFormula, type ResolvedRecipe } from './recipe.js';
+import type { InputFile, SanitizeCounts } from './stages/source.js';
 
 export const MANIFEST_SCHEMA_VERSION = 1;
 export const TOOL_NAME = 'lightkiln';
@@ -67,4 +67,46 @@ export const CONVENTIONS: Readonly<Record<string, string>> = {
 /** SH coefficients as 9 [r, g, b] triples in the order of the manifest's `sh.basis`. */
 export function shTriples(coeffs: ArrayLike<number>): [number, number, number][] {
   return Array.from({ length: 9 }, (_, k) => [coeffs[3 * k]!, coeffs[3 * k + 1]!, coeffs[3 * k + 2]!] as [number, number, number]);
+}
+
+/** What the manifest is assembled from: the bake's recipe and inputs, and the metadata its files carried. */
+export interface ManifestParts {
+  readonly recipe: ResolvedRecipe;
+  readonly inputs: readonly InputFile[];
+  readonly inputHashes: readonly string[];
+  readonly levels: readonly ManifestLevel[];
+  readonly sh: { readonly radiance: readonly number[]; readonly irradiance: readonly number[] };
+  readonly lutChannels: readonly string[] | null;
+  readonly artifacts: readonly ManifestArtifact[];
+  readonly sanitized: SanitizeCounts;
+  readonly clampedToFormat: { readonly specular: number; readonly irradiance: number };
+  readonly timingsMs: Readonly<Record<string, number>>;
+  readonly cache: Manifest['cache'];
+}
+
+export function assembleManifest(p: ManifestParts): Manifest {
+  const r = p.recipe;
+  return {
+    schemaVersion: MANIFEST_SCHEMA_VERSION,
+    tool: { name: TOOL_NAME, version: TOOL_VERSION },
+    probe: r.name,
+    inputs: p.inputs.map((i, k) => ({ path: i.name, byteLength: i.bytes.length, sha256: p.inputHashes[k]! })),
+    recipe: r,
+    conventions: CONVENTIONS,
+    roughnessToLod: roughnessToLodFormula(r.roughness),
+    levels: p.levels,
+    sh: {
+      basis: 'real SH9, order (Y00, Y1-1 y, Y10 z, Y11 x, Y2-2 xy, Y2-1 yz, Y20 3z^2-1, Y21 xz, Y22 x^2-y^2), no Condon-Shortley phase',
+      window: { kind: r.irradiance.shWindow, width: r.irradiance.shWindowWidth },
+      radiance: shTriples(p.sh.radiance),
+      irradiance: shTriples(p.sh.irradiance),
+    },
+    irradianceCube: { size: r.irradiance.cubeSize, source: r.irradiance.cubeSource, stores: 'E (irradiance), not E / pi' },
+    lut: p.lutChannels === null ? null : { size: r.dfg.size, samples: r.dfg.samples, channels: p.lutChannels },
+    artifacts: p.artifacts,
+    sanitized: p.sanitized,
+    clampedToFormat: p.clampedToFormat,
+    timingsMs: Object.fromEntries(Object.entries(p.timingsMs).map(([k, v]) => [k, Math.round(v * 10) / 10])),
+    cache: { ...p.cache },
+  };
 }

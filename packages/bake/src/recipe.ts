@@ -249,6 +249,30 @@ export function roughnessToLodFormula(roughness: readonly number[]): string {
   return `lod = m + (r - r_m) / (r_(m+1) - r_m) for r_m <= r <= r_(m+1), r_m = [${roughness.join(', ')}], L = ${L}`;
 }
 
+/**
+ * One level of the specular chain, made once from the recipe and used by the cache keys, the stages,
+ * the manifest and the sweep, so a level's face size, roughness and sample count are derived in one place.
+ */
+export interface LevelDescriptor {
+  readonly level: number;
+  /** Face size of the level: the base size halved per level, at least 1. */
+  readonly faceSize: number;
+  /** Perceptual roughness r of the level (GGX alpha = r^2). */
+  readonly perceptualRoughness: number;
+  /** Samples per texel the recipe asks for (0 at the mirror level; the default quadrature ignores it). */
+  readonly requestedSamples: number;
+}
+
+/** The chain's levels; `samples` overrides the recipe's per-level counts (the sweep tries other budgets). */
+export function levelDescriptors(recipe: Pick<ResolvedRecipe, 'size' | 'roughness' | 'samples'>, samples: readonly number[] = recipe.samples): LevelDescriptor[] {
+  return recipe.roughness.map((perceptualRoughness, level) => ({
+    level,
+    faceSize: Math.max(1, recipe.size >> level),
+    perceptualRoughness,
+    requestedSamples: level === 0 ? 0 : samples[level]!,
+  }));
+}
+
 /** The mapping of roughnessToLodFormula as a number: the level of detail for perceptual roughness r. */
 export function roughnessToLod(r: number, roughness: readonly number[]): number {
   const L = roughness.length;
@@ -257,6 +281,14 @@ export function roughnessToLod(r: number, roughness: readonly number[]): number 
   if (roughness.every((v, m) => Math.abs(v - levelRoughness(m, L)) < 1e-12)) return (L - 1) * x ** (1 / ROUGHNESS_EXPONENT);
   for (let m = 0; m + 1 < L; m++) if (x <= roughness[m + 1]!) return m + Math.max(0, (x - roughness[m]!) / (roughness[m + 1]! - roughness[m]!));
   return L - 1;
+}
+
+/** The DFG table's own options (Baker.lut): validated as the recipe's `dfg` and `output.supercompression`. */
+export function resolveLutOptions(options: { size?: number; samples?: number; multiscatter?: boolean; cloth?: boolean; supercompression?: 'none' | 'zlib' | 'zstd' }): { dfg: ResolvedRecipe['dfg']; supercompression: ResolvedRecipe['output']['supercompression'] } {
+  const { supercompression, ...dfg } = options;
+  const parsed = z.object({ dfg: schema.shape.dfg, supercompression: schema.shape.output.unwrap().shape.supercompression }).safeParse({ dfg: { ...dfg, enabled: true }, supercompression });
+  if (!parsed.success) throw invalidRecipe(formatIssues(parsed.error));
+  return parsed.data;
 }
 
 export function resolveRecipe(recipe: Recipe): ResolvedRecipe {

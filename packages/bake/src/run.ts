@@ -6,7 +6,7 @@ import type { EntryCache } from './cache/entry.js';
 import { aborted, LightkilnError } from './errors.js';
 import type { BakeEvent } from './events.js';
 import type { Keys } from './keys.js';
-import type { ResolvedRecipe } from './recipe.js';
+import { levelDescriptors, type ResolvedRecipe } from './recipe.js';
 import { warmPool, type StageContext } from './stages/context.js';
 import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
 import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
@@ -109,7 +109,7 @@ export class BakeRun {
           continue;
         }
         const meta = entry.meta as { usedSamples: number; relativeErrorEstimate: number };
-        results.push({ level: m, size: Math.max(1, r.size >> m), data: toF32(entry.arrays[0]), usedSamples: meta.usedSamples, relativeErrorEstimate: meta.relativeErrorEstimate });
+        results.push({ level: m, size: levelDescriptors(r)[m]!.faceSize, data: toF32(entry.arrays[0]), usedSamples: meta.usedSamples, relativeErrorEstimate: meta.relativeErrorEstimate });
       }
       const missing = results.flatMap((res, m) => (res === null ? [m] : []));
       if (missing.length > 0) {
@@ -117,7 +117,8 @@ export class BakeRun {
         this.#check();
         const computed: LevelResult[] = [];
         if (missing[0] === 0) computed.push(mirrorLevel(pyramid));
-        const requests = missing.filter((m) => m > 0).map((m) => ({ level: m, size: Math.max(1, r.size >> m), roughness: r.roughness[m]!, samples: r.samples[m]! }));
+        const descriptors = levelDescriptors(r);
+        const requests = missing.filter((m) => m > 0).map((m) => descriptors[m]!);
         computed.push(...(await this.#timed('specular', () => prefilterLevels(pyramid, requests, r, this.ctx))));
         for (const level of computed) {
           results[level.level] = level;
@@ -159,27 +160,37 @@ export class BakeRun {
     return this.#irr;
   }
 
-  async dfg(): Promise<DfgTable> {
-    const entry = await this.cache.get(this.keys.dfg);
-    if (entry !== null) {
-      const meta = entry.meta as { size: number; channels: number; channelNames: string[] };
-      return { ...meta, data: toF32(entry.arrays[0]) };
-    }
-    this.#check();
-    const table = await this.#timed('dfg', () => bakeDfgTable(this.recipe.dfg, this.ctx));
-    await this.cache.put(this.keys.dfg, { meta: { size: table.size, channels: table.channels, channelNames: table.channelNames }, arrays: [table.data] });
-    return table;
+  dfg(): Promise<DfgTable> {
+    return cachedDfg(this.cache, this.keys.dfg, this.recipe.dfg, this.ctx, (fn) => this.#timed('dfg', fn));
   }
 
   /** A finished file from the cache, or built and stored; `meta` carries manifest fragments. */
-  async file<M>(key: string, build: () => Promise<{ bytes: Uint8Array; meta: M }>): Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }> {
-    const entry = await this.cache.get(key);
-    if (entry !== null && entry.arrays[0] instanceof Uint8Array) return { bytes: entry.arrays[0], meta: entry.meta as M, fromCache: true };
-    const built = await build();
-    this.#check();
-    await this.cache.put(key, { meta: built.meta, arrays: [built.bytes] });
-    return { ...built, fromCache: false };
+  file<M>(key: string, build: () => Promise<{ bytes: Uint8Array; meta: M }>): Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }> {
+    return cachedFile(this.cache, key, build, () => this.#check());
   }
+}
+
+/** The DFG table from the cache, or computed (on the pool) and stored. */
+export async function cachedDfg(cache: EntryCache, key: string, options: ResolvedRecipe['dfg'], ctx: StageContext, timed: (fn: () => Promise<DfgTable>) => Promise<DfgTable> = (fn) => fn()): Promise<DfgTable> {
+  const entry = await cache.get(key);
+  if (entry !== null) {
+    const meta = entry.meta as { size: number; channels: number; channelNames: string[] };
+    return { ...meta, data: toF32(entry.arrays[0]) };
+  }
+  if (ctx.signal?.aborted) throw aborted(ctx.signal.reason);
+  const table = await timed(() => bakeDfgTable(options, ctx));
+  await cache.put(key, { meta: { size: table.size, channels: table.channels, channelNames: table.channelNames }, arrays: [table.data] });
+  return table;
+}
+
+/** A finished file from the cache, or built, checked against cancellation and stored. */
+export async function cachedFile<M>(cache: EntryCache, key: string, build: () => Promise<{ bytes: Uint8Array; meta: M }>, check: () => void): Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }> {
+  const entry = await cache.get(key);
+  if (entry !== null && entry.arrays[0] instanceof Uint8Array) return { bytes: entry.arrays[0], meta: entry.meta as M, fromCache: true };
+  const built = await build();
+  check();
+  await cache.put(key, { meta: built.meta, arrays: [built.bytes] });
+  return { ...built, fromCache: false };
 }
 
 export async function encodeTimed<T>(run: BakeRun, fn: () => T): Promise<T> {

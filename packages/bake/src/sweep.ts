@@ -9,7 +9,7 @@ import { readFileSync } from 'node:fs';
 import { luminance } from '@lightkiln/math';
 import { WorkerPool, getSharedPool } from '@lightkiln/pool';
 import { aborted, invalidOption, LightkilnError, toLightkilnError } from './errors.js';
-import { resolveRecipe, SAMPLE_PRESETS, type Recipe } from './recipe.js';
+import { levelDescriptors, resolveRecipe, SAMPLE_PRESETS, type Recipe } from './recipe.js';
 import type { BakeProgress, StageContext } from './stages/context.js';
 import { buildPyramid } from './stages/pyramid.js';
 import { decodeSource } from './stages/source.js';
@@ -122,7 +122,7 @@ export async function sweepBudgets(options: SweepOptions): Promise<SweepResult> 
       if (bytes === null) throw new LightkilnError('INVALID_RECIPE', 'invalid recipe: the sweep takes input.path or input.bytes');
       const source = decodeSource(recipe, [{ name: recipe.input.name, bytes: new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength) }]);
       const pyramid = await buildPyramid(source, recipe.size, recipe.rotationDeg, ctx);
-      const levelRequests = (samples: readonly number[]): LevelRequest[] => recipe.roughness.slice(1).map((roughness, i) => ({ level: i + 1, size: Math.max(1, recipe.size >> (i + 1)), roughness, samples: samples[i + 1]! }));
+      const levelRequests = (samples: readonly number[]): LevelRequest[] => levelDescriptors(recipe, samples).slice(1);
       const t0 = performance.now();
       const reference = await prefilterLevels(pyramid, levelRequests(recipe.samples), { ...recipe, quality: 'reference' }, ctx);
       const referenceMs = performance.now() - t0;

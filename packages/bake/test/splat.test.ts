@@ -10,8 +10,8 @@
 
 import { describe, expect, it } from 'vitest';
 import { sharedFloat32, toShared } from '@lightkiln/pool';
-import { cubeTexelSolidAngle } from '@lightkiln/math';
-import { nodeGeometry, splatEquirect, splatSubcells, type SplatParams } from '@lightkiln/bake/kernels';
+import { cubeTexelSolidAngle, directionToCubeFace } from '@lightkiln/math';
+import { Landing, nodeGeometry, splatEquirect, splatSubcells, type SplatParams } from '@lightkiln/bake/kernels';
 
 const W = 256;
 const H = 128;
@@ -99,5 +99,38 @@ describe('equirect splat: the ordinary and the bright path agree', () => {
     const expected = pixelOmega * (1e4 - (0.2126 * 1 + 0.7152 * 0.8 + 0.0722 * 0.6));
     // The added energy is the sun's, give or take the sky under it (the sky value of that pixel).
     expect(Math.abs(added - expected) / expected).toBeLessThan(2e-4);
+  });
+});
+
+describe('the splat\'s inlined face selection', () => {
+  it('lands every direction in the texel math\'s directionToCubeFace picks (Vulkan face selection, ties included)', () => {
+    const n = 16;
+    const out = new Float64Array(3);
+    // One accumulator set per face, each tile a whole face.
+    const faces = [0, 1, 2, 3, 4, 5].map((f) => {
+      const count = n * n;
+      const omegaSum = new Float64Array(count);
+      const acc = new Landing(f, n, f * count, count, omegaSum, new Float64Array(3 * count), new Float64Array(3 * count).fill(Infinity), new Float64Array(3 * count), new Float64Array(3 * count));
+      return { acc, omegaSum };
+    });
+    let seed = 12345;
+    const rnd = (): number => {
+      seed = (Math.imul(seed, 1103515245) + 12345) >>> 0;
+      return seed / 4294967296;
+    };
+    const dirs: [number, number, number][] = [];
+    for (let i = 0; i < 4000; i++) dirs.push([2 * rnd() - 1, 2 * rnd() - 1, 2 * rnd() - 1]);
+    // Exact ties between major axes and face-edge directions.
+    for (const d of [[1, 1, 0], [1, 0, 1], [0, 1, 1], [1, 1, 1], [-1, -1, -1], [1, -1, 1], [0.5, 0.5, -0.5], [-1, 1, 0], [0, -1, -1]] as [number, number, number][]) dirs.push(d);
+    for (const [x, y, z] of dirs) {
+      for (const f of faces) f.omegaSum.fill(0);
+      for (const f of faces) f.acc.land(x, y, z, 1, 1, 1, 1);
+      directionToCubeFace(out, 0, x, y, z);
+      const face = out[0]!;
+      const tx = Math.min(n - 1, Math.floor(out[1]! * n));
+      const ty = Math.min(n - 1, Math.floor(out[2]! * n));
+      const landed = faces.flatMap((f, i) => [...f.omegaSum].flatMap((w, t) => (w > 0 ? [[i, t]] : [])));
+      expect(landed, `direction ${x}, ${y}, ${z}`).toEqual([[face, ty * n + tx]]);
+    }
   });
 });

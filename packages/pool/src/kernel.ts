@@ -16,9 +16,14 @@ export interface KernelModule {
 }
 
 /** Names a kernel by the URL of its built module and its key in that module's `kernels`. */
-export interface KernelRef {
+/**
+ * A kernel by module and export name. P is the kernel's parameter type, carried for the compiler only
+ * (never set at run time), so a job whose params do not fit its kernel fails to compile.
+ */
+export interface KernelRef<P = never> {
   readonly moduleUrl: string;
   readonly name: string;
+  readonly __params?: (params: P) => void;
 }
 
 const moduleCache = new Map<string, Promise<KernelModule>>();

@@ -31,7 +31,7 @@ export interface JobProgress {
 }
 
 export interface PoolJob<P = unknown> {
-  readonly kernel: KernelRef;
+  readonly kernel: KernelRef<P>;
   readonly buffers: SharedBuffers;
   readonly segments: readonly Segment[];
   /** Parameters for every tile, or one entry per segment (structured-cloneable, small). */

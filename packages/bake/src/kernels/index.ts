@@ -1,6 +1,5 @@
 /** The bake's kernel module, loaded by pool workers (built file) and by the inline runner. */
 
-import type { KernelModule } from '@lightkiln/pool';
 import { convolveIrradiance, referenceSpecular } from './convolve.js';
 import { integrateDfgTable } from './dfg.js';
 import { reducePyramid } from './reduce.js';
@@ -12,7 +11,22 @@ import { splatEquirect } from './splat.js';
 export { warmUp } from './warm-up.js';
 import { prefilterSpecular } from './specular.js';
 
-export const kernels: KernelModule['kernels'] = {
+/** Every kernel by name; stages/context.ts derives each kernel's parameter type from this interface. */
+export interface BakeKernels {
+  readonly resampleEquirect: typeof resampleEquirect;
+  readonly resampleCube: typeof resampleCube;
+  readonly reducePyramid: typeof reducePyramid;
+  readonly prefilterSpecular: typeof prefilterSpecular;
+  readonly prefilterQuadrature: typeof prefilterQuadrature;
+  readonly buildNodeTable: typeof buildNodeTable;
+  readonly buildNodeGeometry: typeof buildNodeGeometry;
+  readonly splatEquirect: typeof splatEquirect;
+  readonly referenceSpecular: typeof referenceSpecular;
+  readonly convolveIrradiance: typeof convolveIrradiance;
+  readonly integrateDfgTable: typeof integrateDfgTable;
+}
+
+export const kernels: BakeKernels = {
   resampleEquirect,
   resampleCube,
   reducePyramid,
@@ -24,4 +38,4 @@ export const kernels: KernelModule['kernels'] = {
   referenceSpecular,
   convolveIrradiance,
   integrateDfgTable,
-} as unknown as KernelModule['kernels'];
+};

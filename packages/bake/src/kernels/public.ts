@@ -12,6 +12,7 @@ export { integrateDfgTable } from './dfg.js';
 export type { DfgParams } from './dfg.js';
 export { resampleEquirect, resampleCube } from './resample.js';
 export { splatEquirect } from './splat.js';
+export { Landing } from './splat-bright.js';
 export { nodeGeometry } from '../stages/node-geometry.js';
 export type { SplatParams } from './splat.js';
 export { reducePyramid } from './reduce.js';

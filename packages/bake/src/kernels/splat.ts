@@ -24,6 +24,7 @@
 import { CUBE_FACE_BASIS } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
 import { NODE_STRIDE } from '../stages/node-geometry.js';
+import { brightPixels, landBrightPixels, Landing } from './splat-bright.js';
 
 export interface SplatParams {
   readonly size: number;
@@ -298,141 +299,6 @@ function splatFace(src: Float32Array, dst: Float32Array, cent: Float32Array, geo
     cent[po] = lc * inv - mc;
     cent[po + 1] = lu * inv - mu;
     cent[po + 2] = lv * inv - mv;
-  }
-}
-
-/** Accumulators of one tile: where a sub-cell lands and what it brings (one object per tile, not per sub-cell). */
-class Landing {
-  private readonly half: number;
-  constructor(
-    private readonly face: number,
-    private readonly n: number,
-    private readonly begin: number,
-    private readonly count: number,
-    private readonly omegaSum: Float64Array,
-    private readonly energy: Float64Array,
-    private readonly minimum: Float64Array,
-    private readonly lumMoment: Float64Array,
-    private readonly geoMoment: Float64Array,
-  ) {
-    this.half = n / 2;
-  }
-
-  /** Adds a sub-cell of solid angle omega, direction (dx, dy, dz) (cube frame) and radiance (r, g, b) to its texel, if the tile holds it. */
-  land(dx: number, dy: number, dz: number, omega: number, r: number, g: number, bl: number): void {
-    // Face selection (ties: z, then y, then x), as the other kernels.
-    const ax = dx < 0 ? -dx : dx;
-    const ayy = dy < 0 ? -dy : dy;
-    const az = dz < 0 ? -dz : dz;
-    let f: number;
-    let sc: number;
-    let tc: number;
-    let ma: number;
-    if (az >= ayy && az >= ax) {
-      ma = az; tc = -dy;
-      if (dz >= 0) { f = 4; sc = dx; } else { f = 5; sc = -dx; }
-    } else if (ayy >= ax) {
-      ma = ayy; sc = dx;
-      if (dy >= 0) { f = 2; tc = dz; } else { f = 3; tc = -dz; }
-    } else {
-      ma = ax; tc = -dy;
-      if (dx >= 0) { f = 0; sc = -dz; } else { f = 1; sc = dz; }
-    }
-    if (f !== this.face) return;
-    const n = this.n;
-    let tx = ((sc / ma + 1) * this.half) | 0;
-    let ty = ((tc / ma + 1) * this.half) | 0;
-    if (tx >= n) tx = n - 1;
-    if (ty >= n) ty = n - 1;
-    const local = f * n * n + ty * n + tx - this.begin;
-    if (local < 0 || local >= this.count) return;
-    const o = local * 3;
-    const energy = this.energy;
-    const minimum = this.minimum;
-    this.omegaSum[local]! += omega;
-    energy[o]! += r * omega;
-    energy[o + 1]! += g * omega;
-    energy[o + 2]! += bl * omega;
-    if (r < minimum[o]!) minimum[o] = r;
-    if (g < minimum[o + 1]!) minimum[o + 1] = g;
-    if (bl < minimum[o + 2]!) minimum[o + 2] = bl;
-    const yo = (0.2126 * r + 0.7152 * g + 0.0722 * bl) * omega;
-    const lum = this.lumMoment;
-    const geom = this.geoMoment;
-    lum[o]! += yo * dx;
-    lum[o + 1]! += yo * dy;
-    lum[o + 2]! += yo * dz;
-    geom[o]! += omega * dx;
-    geom[o + 1]! += omega * dy;
-    geom[o + 2]! += omega * dz;
-  }
-}
-
-interface BrightPixels {
-  /** One flag per pixel of the tile's source window (rows row0.., columns col0.. wrapped), 1 = bright or next to a bright pixel. */
-  readonly flags: Uint8Array;
-  /** One flag per window row: 1 when the row holds a flagged pixel. */
-  readonly rows: Uint8Array;
-}
-
-/** Flags the window's pixels above the luminance threshold and their 8 neighbours (their bilinear reconstruction reaches the bright one); null when none. */
-function brightPixels(src: Float32Array, W: number, row0: number, row1: number, col0: number, col1: number, threshold: number): BrightPixels | null {
-  if (!(threshold < Infinity)) return null;
-  const rowsN = row1 - row0 + 1;
-  const cols = col1 - col0 + 1;
-  let flags: Uint8Array | null = null;
-  for (let j = 0; j < rowsN; j++) {
-    const base = (row0 + j) * W;
-    let x = col0 % W;
-    if (x < 0) x += W;
-    for (let i = 0; i < cols; i++, x = x + 1 === W ? 0 : x + 1) {
-      const o = (base + x) * 3;
-      if (0.2126 * src[o]! + 0.7152 * src[o + 1]! + 0.0722 * src[o + 2]! > threshold) {
-        flags ??= new Uint8Array(rowsN * cols);
-        for (let jj = j > 0 ? j - 1 : 0; jj <= j + 1 && jj < rowsN; jj++) {
-          for (let ii = i > 0 ? i - 1 : 0; ii <= i + 1 && ii < cols; ii++) flags[jj * cols + ii] = 1;
-        }
-      }
-    }
-  }
-  if (flags === null) return null;
-  const rows = new Uint8Array(rowsN);
-  for (let j = 0; j < rowsN; j++) {
-    for (let i = 0; i < cols; i++) {
-      if (flags[j * cols + i] === 1) { rows[j] = 1; break; }
-    }
-  }
-  return { flags, rows };
-}
-
-/** The flagged pixels, each cut into fine x fine sub-cells (even: the midpoint rule stays exact on the bilinear reconstruction). */
-function landBrightPixels(acc: Landing, src: Float32Array, W: number, H: number, row0: number, col0: number, cols: number, bright: BrightPixels, fine: number, c: number, sn: number): void {
-  const dPhi = (2 * Math.PI) / (W * fine);
-  for (let j = 0; j < bright.rows.length; j++) {
-    if (bright.rows[j] !== 1) continue;
-    const row = row0 + j;
-    for (let i = 0; i < cols; i++) {
-      if (bright.flags[j * cols + i] !== 1) continue;
-      const col = col0 + i;
-      let x = col % W;
-      if (x < 0) x += W;
-      const p = (row * W + x) * 3;
-      for (let sj = 0; sj < fine; sj++) {
-        const ta = ((row + sj / fine) * Math.PI) / H;
-        const tb = ((row + (sj + 1) / fine) * Math.PI) / H;
-        const theta = ((row + (sj + 0.5) / fine) * Math.PI) / H;
-        const omega = dPhi * (Math.cos(ta) - Math.cos(tb));
-        const sinT = Math.sin(theta);
-        const dy = Math.cos(theta);
-        for (let sk = 0; sk < fine; sk++) {
-          const u = col + (sk + 0.5) / fine;
-          const phi = (2 * Math.PI * u) / W;
-          const sx = -sinT * Math.sin(phi);
-          const sz = sinT * Math.cos(phi);
-          acc.land(sx * c + sz * sn, dy, -sx * sn + sz * c, omega, src[p]!, src[p + 1]!, src[p + 2]!);
-        }
-      }
-    }
   }
 }
 

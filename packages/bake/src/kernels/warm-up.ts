@@ -30,7 +30,7 @@ export async function warmUp(): Promise<void> {
   data[(10 * width + 20) * 3 + 1] = 4000;
   const source = { kind: 'equirect' as const, width, height, data, sanitized: { nan: 0, infinite: 0, negative: 0, clampedHigh: 0 } };
   const pyramid = await buildPyramid(source, 8, 10, ctx);
-  const requests = [1, 2, 3].map((level) => ({ level, size: 8 >> level, roughness: level / 3, samples: 16 }));
+  const requests = [1, 2, 3].map((level) => ({ level, faceSize: 8 >> level, perceptualRoughness: level / 3, requestedSamples: 16 }));
   await prefilterLevels(pyramid, requests, { filtered: true, lodBias: 0.5, clampLuminance: 0, rotateSequence: false, quality: 'quadrature' }, ctx);
   await irradianceCube(pyramid, 4, 'convolution', { radiance: new Float64Array(27), irradiance: new Float64Array(27) }, ctx);
   await pool.close();

@@ -22,7 +22,14 @@ export interface StageContext {
 
 const KERNEL_MODULE = builtModuleUrl(import.meta.url, '../kernels/index.js');
 
-export function kernel(name: string): KernelRef {
+type Kernels = import('../kernels/index.js').BakeKernels;
+/** The names of the bake's kernels. */
+export type KernelName = keyof Kernels;
+/** The parameter object a kernel takes (its fourth argument). */
+export type KernelParams<N extends KernelName> = Parameters<Kernels[N]>[3];
+
+/** A typed reference to one of the bake's kernels: a job's params must match the kernel's. */
+export function kernel<N extends KernelName>(name: N): KernelRef<KernelParams<N>> {
   return { moduleUrl: KERNEL_MODULE, name };
 }
 

@@ -6,8 +6,9 @@
 
 import { CodecError, decodeImage, decodeKtx2, sniffFormat, type DecodedImage } from '@lightkiln/codecs';
 import { LightkilnError, toLightkilnError } from '../errors.js';
-import type { ResolvedRecipe } from '../recipe.js';
+import type { Recipe, ResolvedRecipe } from '../recipe.js';
 import { sharedFloat32, toShared } from '@lightkiln/pool';
+import { readFileSync, statSync } from 'node:fs';
 
 export interface SanitizeCounts {
   nan: number;
@@ -39,6 +40,32 @@ function toRgb(image: DecodedImage): Float32Array {
 }
 
 /** Repairs or rejects non-finite, negative and too-bright values in place. */
+/** The recipe's input files (bytes given, one path, or six faces), each checked against limits.maxInputBytes. */
+export function readInputFiles(recipe: ResolvedRecipe, raw: Recipe): InputFile[] {
+  if (raw.input.bytes !== undefined) {
+    if (raw.input.bytes.length > recipe.limits.maxInputBytes) throw new LightkilnError('LIMIT_EXCEEDED', `${recipe.input.name}: input of ${raw.input.bytes.length} bytes exceeds limits.maxInputBytes (${recipe.limits.maxInputBytes})`, { file: recipe.input.name });
+    return [{ name: recipe.input.name, bytes: raw.input.bytes }];
+  }
+  const paths = recipe.input.faces ?? [recipe.input.path!];
+  return paths.map((path) => {
+    let size: number;
+    try {
+      const st = statSync(path);
+      if (!st.isFile()) throw new LightkilnError('INVALID_INPUT', `${path}: not a regular file`, { file: path });
+      size = st.size;
+    } catch (error) {
+      throw toLightkilnError(error, path);
+    }
+    if (size > recipe.limits.maxInputBytes) throw new LightkilnError('LIMIT_EXCEEDED', `${path}: file of ${size} bytes exceeds limits.maxInputBytes (${recipe.limits.maxInputBytes})`, { file: path });
+    try {
+      const b = readFileSync(path);
+      return { name: path, bytes: new Uint8Array(b.buffer, b.byteOffset, b.byteLength) };
+    } catch (error) {
+      throw toLightkilnError(error, path);
+    }
+  });
+}
+
 export function sanitize(data: Float32Array, recipe: ResolvedRecipe, file: string): SanitizeCounts {
   const counts: SanitizeCounts = { nan: 0, infinite: 0, negative: 0, clampedHigh: 0 };
   const maxR = recipe.sanitize.maxRadiance;

@@ -14,6 +14,7 @@ import { NODE_TABLE_STRIDE, type NodeTableParams } from '../kernels/node-table.j
 import { SPECULAR_LEVEL_STRIDE, SPECULAR_SAMPLE_STRIDE, type SpecularParams } from '../kernels/specular.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
 import { levelView, type Pyramid } from './pyramid.js';
+import type { LevelDescriptor } from '../recipe.js';
 
 export interface SampleSetOptions {
   readonly sampleCount: number;
@@ -85,12 +86,8 @@ export function buildSampleSet(alpha: number, pyramid: Pyramid, options: SampleS
   return { directions: out.slice(0, kept * SPECULAR_SAMPLE_STRIDE), levels: lv.slice(0, kept * SPECULAR_LEVEL_STRIDE), count: kept };
 }
 
-export interface LevelRequest {
-  readonly level: number;
-  readonly size: number;
-  readonly roughness: number;
-  readonly samples: number;
-}
+/** A level to compute (level >= 1): the recipe's level descriptor. */
+export type LevelRequest = LevelDescriptor;
 
 export interface LevelResult {
   readonly level: number;
@@ -198,7 +195,7 @@ async function buildNodes(pyramid: Pyramid, geometry: NodeGeometry, finest: numb
 async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelRequest[], ctx: StageContext, exhaustive = false): Promise<LevelResult[]> {
   const geometry = await nodeGeometryOnPool(pyramid.sizes[0]!, ctx);
   const levels = pyramid.sizes.length;
-  const narrowest = Math.min(...requests.map((req) => alphaFromPerceptualRoughness(req.roughness)));
+  const narrowest = Math.min(...requests.map((req) => alphaFromPerceptualRoughness(req.perceptualRoughness)));
   const finest = exhaustive ? 0 : finestNodeLevel(pyramid, geometry, narrowest);
   const levelTable = sharedInt32(levels * LEVEL_TABLE_STRIDE);
   for (let k = 0; k < levels; k++) {
@@ -214,19 +211,19 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
   const segments = [];
   const segmentParams: QuadratureParams[] = [];
   for (const req of requests) {
-    const alpha = alphaFromPerceptualRoughness(req.roughness);
+    const alpha = alphaFromPerceptualRoughness(req.perceptualRoughness);
     const params: QuadratureParams = {
-      size: req.size, levelBegin: texels, dstOffset: texels * 3, alphaSquared: alpha * alpha,
+      size: req.faceSize, levelBegin: texels, dstOffset: texels * 3, alphaSquared: alpha * alpha,
       theta: exhaustive ? 0 : QUADRATURE_THETA, lobeWidth: QUADRATURE_GAMMA * alpha, meanLuminance, levels, finestLevel: finest,
       negligible: exhaustive ? 0 : QUADRATURE_NEGLIGIBLE * lobeIntegral(alpha * alpha),
       lobeIntegral: lobeIntegral(alpha * alpha), brightRatio: QUADRATURE_BRIGHT,
       shareScale: exhaustive ? 0 : 1 / (QUADRATURE_SHARE * lobeIntegral(alpha * alpha)),
     };
     for (let f = 0; f < 6; f++) {
-      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: exhaustive ? 4 * pyramid.sizes[0]! ** 2 : 200, rowLength: req.size, label: `level ${req.level} face ${f}` });
+      segments.push({ begin: texels + f * req.faceSize * req.faceSize, end: texels + (f + 1) * req.faceSize * req.faceSize, costPerItem: exhaustive ? 4 * pyramid.sizes[0]! ** 2 : 200, rowLength: req.faceSize, label: `level ${req.level} face ${f}` });
       segmentParams.push(params);
     }
-    texels += 6 * req.size * req.size;
+    texels += 6 * req.faceSize * req.faceSize;
   }
   const nodes = await buildNodes(pyramid, geometry, finest, ctx);
   const dst = sharedFloat32(texels * 3);
@@ -236,7 +233,7 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
   if (exhaustive) {
     return requests.map((req, r) => {
       const p = segmentParams[r * 6]!;
-      return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + 6 * req.size * req.size * 3), usedSamples: 6 * pyramid.sizes[0]! ** 2, relativeErrorEstimate: 0 };
+      return { level: req.level, size: req.faceSize, data: dst.slice(p.dstOffset, p.dstOffset + 6 * req.faceSize * req.faceSize * 3), usedSamples: 6 * pyramid.sizes[0]! ** 2, relativeErrorEstimate: 0 };
     });
   }
   // The error estimate: every 32nd row of every face (at least two rows a face) again with half the
@@ -259,7 +256,7 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
   await ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers: { ...buffers, dst: fine, visits: sharedFloat32(texels) }, segments: checkSegments, segmentParams: checkParams, ...jobOptions(ctx, 'specular') });
   return requests.map((req, r) => {
     const p = segmentParams[r * 6]!;
-    const n = 6 * req.size * req.size;
+    const n = 6 * req.faceSize * req.faceSize;
     let sum = 0;
     let sumY = 0;
     for (let t = 0; t < n; t++) {
@@ -280,7 +277,7 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
     }
     const meanY = sumY / n;
     const estimate = meanY > 0 && checked > 0 ? (2 * Math.sqrt(se / checked)) / meanY : 0;
-    return { level: req.level, size: req.size, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: Math.round(sum / n), relativeErrorEstimate: estimate };
+    return { level: req.level, size: req.faceSize, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: Math.round(sum / n), relativeErrorEstimate: estimate };
   });
 }
 
@@ -290,8 +287,8 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
   // The reference: the same leaf model with every level-0 texel a leaf (no tree, no tolerance).
   if (options.quality === 'reference') return quadratureLevels(pyramid, requests, ctx, true);
   if (options.quality === 'quadrature') return quadratureLevels(pyramid, requests, ctx);
-  const sets = requests.map((req) => buildSampleSet(alphaFromPerceptualRoughness(req.roughness), pyramid, {
-    sampleCount: req.samples,
+  const sets = requests.map((req) => buildSampleSet(alphaFromPerceptualRoughness(req.perceptualRoughness), pyramid, {
+    sampleCount: req.requestedSamples,
     filtered: options.filtered,
     lodBias: options.lodBias,
     rotationSeed: options.rotateSequence ? 0x51 + req.level : 0,
@@ -308,7 +305,7 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
     samples.set(sets[r]!.directions, sampleOffset * SPECULAR_SAMPLE_STRIDE);
     sampleLevels.set(sets[r]!.levels, sampleOffset * SPECULAR_LEVEL_STRIDE);
     const count = sets[r]!.count;
-    const perLevel = 6 * req.size * req.size;
+    const perLevel = 6 * req.faceSize * req.faceSize;
     let weightSum = 0;
     let weightSquareSum = 0;
     for (let k = 0; k < count; k++) {
@@ -316,9 +313,9 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
       weightSum += w;
       weightSquareSum += w * w;
     }
-    const params: SpecularParams = { levelBegin: texels, size: req.size, dstOffset: texels * 3, sampleOffset, sampleCount: count, clampLuminance: options.clampLuminance, weightSum, weightSquareSum };
+    const params: SpecularParams = { levelBegin: texels, size: req.faceSize, dstOffset: texels * 3, sampleOffset, sampleCount: count, clampLuminance: options.clampLuminance, weightSum, weightSquareSum };
     for (let f = 0; f < 6; f++) {
-      segments.push({ begin: texels + f * req.size * req.size, end: texels + (f + 1) * req.size * req.size, costPerItem: Math.max(1, count), rowLength: req.size, label: `level ${req.level} face ${f}` });
+      segments.push({ begin: texels + f * req.faceSize * req.faceSize, end: texels + (f + 1) * req.faceSize * req.faceSize, costPerItem: Math.max(1, count), rowLength: req.faceSize, label: `level ${req.level} face ${f}` });
       segmentParams.push(params);
     }
     sampleOffset += count;
@@ -329,7 +326,7 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
   await ctx.pool.run({ kernel: kernel('prefilterSpecular'), buffers: { pyramid: pyramid.data, samples, sampleLevels, dst, err }, segments, segmentParams, ...jobOptions(ctx, 'specular') });
   return requests.map((req, r) => {
     const p = segmentParams[r * 6]!;
-    const n = 6 * req.size * req.size;
+    const n = 6 * req.faceSize * req.faceSize;
     const data = dst.slice(p.dstOffset, p.dstOffset + n * 3);
     let sumErr2 = 0;
     let sumY = 0;
@@ -339,7 +336,7 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
       sumY += luminance(data[t * 3]!, data[t * 3 + 1]!, data[t * 3 + 2]!);
     }
     const meanY = sumY / n;
-    return { level: req.level, size: req.size, data, usedSamples: p.sampleCount, relativeErrorEstimate: meanY > 0 ? Math.sqrt(sumErr2 / n) / meanY : 0 };
+    return { level: req.level, size: req.faceSize, data, usedSamples: p.sampleCount, relativeErrorEstimate: meanY > 0 ? Math.sqrt(sumErr2 / n) / meanY : 0 };
   });
 }
 
