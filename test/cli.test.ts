@@ -5,7 +5,7 @@
  */
 
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -165,6 +165,48 @@ describe('lightkiln bake', () => {
     expect(batchText).toContain(esc(batch));
     expect(batchText).toContain(esc(skyPath));
     expect(batchText).toContain(esc(join(out, 'p2.probe.json')));
+  });
+
+  it('replays an unchanged bake from its stamp, and bakes again when a file it read or wrote changed', () => {
+    const dir = join(work, 'stamp');
+    mkdirSync(dir, { recursive: true });
+    const input = join(dir, 'sky.hdr');
+    writeFileSync(input, readFileSync(skyPath));
+    const out = join(dir, 'out');
+    const depfile = join(dir, 'sky.d');
+    const args = ['bake', input, '--out', out, '--size', '16', '--samples', 'draft', '--cache-dir', join(dir, 'cache'), '--depfile', depfile];
+    const first = run(args);
+    expect(first.status, first.stderr).toBe(0);
+    expect(first.stderr).toContain('baked sky');
+    const spec = join(out, 'sky.specular.ktx2');
+    const bytes = readFileSync(spec);
+    const mtime = statSync(spec).mtimeMs;
+    const depText = readFileSync(depfile, 'utf8');
+    // Unchanged: the same listing, nothing baked or written.
+    const second = run(args);
+    expect(second.status).toBe(0);
+    expect(second.stderr).toContain('up to date');
+    expect(second.stdout).toBe(first.stdout);
+    expect(statSync(spec).mtimeMs).toBe(mtime);
+    // A depfile deleted by the build system (Ninja, deps = gcc) is written again, still up to date.
+    rmSync(depfile);
+    expect(run(args).stderr).toContain('up to date');
+    expect(readFileSync(depfile, 'utf8')).toBe(depText);
+    // An artifact changed by someone else: the ordinary path restores it from the cache.
+    writeFileSync(spec, Buffer.concat([bytes, Buffer.from([0])]));
+    const third = run(args);
+    expect(third.stderr).toContain('baked sky');
+    expect(readFileSync(spec).equals(bytes)).toBe(true);
+    // A different input under the same name: baked again.
+    writeFileSync(input, encodeHdr({ width: 64, height: 32, channels: 3, data: sky(64, 32).map((v) => v * 2) }));
+    const fourth = run(args);
+    expect(fourth.stderr).toContain('baked sky');
+    expect(readFileSync(spec).equals(bytes)).toBe(false);
+    // --json and --no-cache always take the ordinary path.
+    expect(run([...args, '--json']).stderr).not.toContain('up to date');
+    // cache clear removes the stamps with the entries.
+    expect(run(['cache', 'clear', '--cache-dir', join(dir, 'cache')]).status).toBe(0);
+    expect(existsSync(join(dir, 'cache'))).toBe(false);
   });
 
   it('--events prints one JSON object per line: stages, cache hits and misses, artifacts written or kept', () => {

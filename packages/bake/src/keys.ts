@@ -5,12 +5,10 @@
  */
 
 import { stageKey } from './hash.js';
+import { STAGE_VERSIONS } from './version.js';
 import { levelDescriptors, type ResolvedRecipe } from './recipe.js';
 
-/** Algorithm versions: bump one when its stage's output changes, to invalidate old cache entries. */
-export const STAGE_VERSIONS: Readonly<Record<string, number>> = Object.freeze({
-  source: 1, pyramid: 6, level: 5, sh: 1, irradianceCube: 1, dfg: 2, specularFile: 4, irradianceFile: 3, lutFile: 2, view: 1, preview: 1,
-});
+export { STAGE_VERSIONS } from './version.js';
 
 export interface Keys {
   readonly inputHash: string;

@@ -4,8 +4,8 @@ import { roughnessToLodFormula, type ResolvedRecipe } from './recipe.js';
 import type { InputFile, SanitizeCounts } from './stages/source.js';
 
 export const MANIFEST_SCHEMA_VERSION = 1;
-export const TOOL_NAME = 'lightkiln';
-export const TOOL_VERSION = '0.1.0';
+export { TOOL_NAME, TOOL_VERSION } from './version.js';
+import { TOOL_NAME, TOOL_VERSION } from './version.js';
 
 export interface ManifestLevel {
   readonly level: number;

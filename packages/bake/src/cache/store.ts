@@ -3,13 +3,14 @@
  * and memory (tests). Stores move opaque bytes; entry.ts adds the checksum that detects corruption.
  */
 
+import { CACHE_MARKER_NAME } from '../version.js';
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmdirSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { LightkilnError } from '../errors.js';
 import { statOrNull, sweepStaleTempFiles, writeError, writeFileAtomic } from '../files.js';
 
 /** The file that marks a folder as a lightkiln cache; destructive commands refuse a folder without it. */
-export const CACHE_MARKER = '.lightkiln-cache-folder';
+export const CACHE_MARKER: string = CACHE_MARKER_NAME;
 const MARKER_TEXT = 'This folder is a lightkiln cache: `lightkiln cache clear` may delete the entries in it.\n';
 
 export function notACache(dir: string): LightkilnError {
@@ -158,6 +159,16 @@ export class FolderStore implements CacheStore {
         rmdirSync(dir);
       } catch {
         // not empty: something that is not ours stays
+      }
+    }
+    // The CLI's up-to-date stamps (small JSON files, ours too).
+    const stamps = join(this.dir, 'stamps');
+    if (existsSync(stamps)) {
+      for (const file of readdirSync(stamps)) if (/^[0-9a-f]{64}\.stamp$/.test(file)) rmSync(join(stamps, file), { force: true });
+      try {
+        rmdirSync(stamps);
+      } catch {
+        // not empty
       }
     }
     rmSync(join(this.dir, CACHE_MARKER), { force: true });

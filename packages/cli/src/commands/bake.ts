@@ -7,6 +7,7 @@ import { depfileText } from '../depfile.js';
 import { parseArgs, UsageError } from '../args.js';
 import { EXIT_FAILED, EXIT_OK, EXIT_USAGE, printJson, type CommandContext } from '../io.js';
 import { createProgress } from '../progress.js';
+import { fileState, writeStamp, type FileState } from '../up-to-date.js';
 
 export const BAKE_SPEC = {
   out: { type: 'string' }, size: { type: 'number' }, levels: { type: 'number' }, samples: { type: 'string' },
@@ -165,6 +166,9 @@ export async function bakeCommand(argv: readonly string[], ctx: CommandContext):
   if (out === undefined) throw new UsageError('bake', 'missing --out <dir>');
   const recipes = recipesFromArgs('bake', positionals, flags);
   preflight(recipes, out, flags.batch as string | undefined);
+  // Every file the bake reads (depfile prerequisites, and the up-to-date stamp's reads, taken now).
+  const read = [...(flags.recipe !== undefined ? [flags.recipe as string] : []), ...(flags.batch !== undefined ? [flags.batch as string] : []), ...recipes.flatMap(inputPaths)];
+  const readStates = read.map(fileState);
   const baker = createBaker(bakerOptions(flags));
   // --events: one JSON object per line on stderr instead of the progress display (schema: bake's events.ts).
   const events = flags.events === true;
@@ -204,12 +208,19 @@ export async function bakeCommand(argv: readonly string[], ctx: CommandContext):
   if (depfile !== undefined) {
     // Targets: every artifact of the probes that baked (paths as the bake wrote them, from --out as
     // passed); prerequisites: every file read.
-    const read = [...(flags.recipe !== undefined ? [flags.recipe as string] : []), ...(flags.batch !== undefined ? [flags.batch as string] : []), ...recipes.flatMap(inputPaths)];
     writeFilesAtomic([{ path: depfile, bytes: new TextEncoder().encode(depfileText(artifacts.map((a) => a.path), read)) }]);
   }
   if (ctx.json) printJson(ctx, { artifacts, probes: results, failed });
-  else if (!ctx.quiet) for (const a of artifacts) ctx.stdout(`${a.kind.padEnd(10)} ${a.path}\n`);
-  if (failed === 0) return EXIT_OK;
+  const listing = ctx.json || ctx.quiet ? '' : artifacts.map((a) => `${a.kind.padEnd(10)} ${a.path}\n`).join('');
+  if (listing !== '') ctx.stdout(listing);
+  if (failed === 0) {
+    // The next identical command can skip all of this while every file read and written is unchanged.
+    if (!ctx.json && !events && !ctx.signal.aborted && readStates.every((st) => st !== null)) {
+      const depfileRecord = depfile === undefined ? null : { path: depfile, text: readFileSync(depfile, "utf8") };
+      writeStamp(argv, readStates as FileState[], artifacts.map((a) => a.path), depfileRecord, listing);
+    }
+    return EXIT_OK;
+  }
   // A single probe that failed on bad input is a usage/input error; any other failure is a bake failure.
   return recipes.length === 1 && userFailures === 1 ? EXIT_USAGE : EXIT_FAILED;
 }
