@@ -1,0 +1,29 @@
+/** Running the built `lightkiln` command in a child process, and the small sky the CLI tests bake. */
+
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+export const cli = join(root, 'packages/cli/dist/main.js');
+
+export interface CliRun { status: number; stdout: string; stderr: string }
+
+/** Runs `lightkiln ...args` in `cwd` (2 minutes at most). */
+export function runCli(args: readonly string[], cwd: string): CliRun {
+  const r = spawnSync(process.execPath, [cli, ...args], { cwd, encoding: 'utf8', timeout: 120_000, env: { ...process.env, NO_COLOR: '1' } });
+  return { status: r.status ?? -1, stdout: r.stdout, stderr: r.stderr };
+}
+
+/** A vertical gradient with one bright pixel (a small sun at column 5, row 3). */
+export function gradientSky(width: number, height: number): Float32Array {
+  const data = new Float32Array(width * height * 3);
+  for (let j = 0; j < height; j++) {
+    for (let i = 0; i < width; i++) {
+      const o = (j * width + i) * 3;
+      data[o] = 1 + j / height; data[o + 1] = 0.6; data[o + 2] = 2 - j / height;
+      if (i === 5 && j === 3) { data[o] = 3000; data[o + 1] = 2500; data[o + 2] = 2000; }
+    }
+  }
+  return data;
+}
