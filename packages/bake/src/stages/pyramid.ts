@@ -84,11 +84,14 @@ export function brightThreshold(data: Float32Array, width: number, height: numbe
 
 /**
  * How many times finer the splat cuts bright pixels: fine sub-cells of at most an eighth of the smallest
- * texel (about 0.94 / size radians wide, at a cube corner).
+ * texel (about 0.94 / size radians wide, at a cube corner), but no more than 64 per pixel and axis (a
+ * source far coarser than the cube already has sub-cells that fine), so the bright path never costs more
+ * than 1024 x the ordinary one per pixel.
  */
 export function brightRefinement(width: number, height: number, size: number, subcells: number): number {
   const pixelAngle = Math.max(Math.PI / height, (2 * Math.PI) / width);
-  return Math.max(1, Math.ceil((8.5 * pixelAngle * size) / subcells));
+  const wanted = Math.ceil((8.5 * pixelAngle * size) / subcells);
+  return Math.max(1, Math.min(wanted, Math.floor(64 / subcells)));
 }
 
 export async function buildPyramid(source: SourceImage, size: number, rotationDeg: number, ctx: StageContext): Promise<Pyramid> {
