@@ -7,6 +7,8 @@
 import { badMagic, corrupt, truncated } from './errors.js';
 import { allocatePixels, checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
+const HOST_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+
 export interface PfmDecodeOptions {
   readonly file?: string;
   readonly limits?: DecodeLimits;
@@ -39,12 +41,21 @@ export function decodePfm(bytes: Uint8Array, options: PfmDecodeOptions = {}): De
   const need = width * height * channels * 4;
   if (bytes.length - pos < need) throw truncated(file, `in the raster (${bytes.length - pos} of ${need} bytes)`);
   const little = scale < 0;
-  const view = new DataView(bytes.buffer, bytes.byteOffset + pos, need);
   const data = allocatePixels(width * height * channels);
   const rowValues = width * channels;
-  for (let stored = 0; stored < height; stored++) {
-    const row = height - 1 - stored;
-    for (let k = 0; k < rowValues; k++) data[row * rowValues + k] = view.getFloat32((stored * rowValues + k) * 4, little);
+  if (little === HOST_LITTLE_ENDIAN) {
+    // The file's byte order is the machine's: each row is a plain byte copy (the bits of every float kept).
+    const out = new Uint8Array(data.buffer, data.byteOffset, data.byteLength);
+    const rowBytes = rowValues * 4;
+    for (let stored = 0; stored < height; stored++) {
+      out.set(bytes.subarray(pos + stored * rowBytes, pos + (stored + 1) * rowBytes), (height - 1 - stored) * rowBytes);
+    }
+  } else {
+    const view = new DataView(bytes.buffer, bytes.byteOffset + pos, need);
+    for (let stored = 0; stored < height; stored++) {
+      const row = height - 1 - stored;
+      for (let k = 0; k < rowValues; k++) data[row * rowValues + k] = view.getFloat32((stored * rowValues + k) * 4, little);
+    }
   }
   return { width, height, channels, data, format: 'pfm', issues: countPixelIssues(data) };
 }

@@ -71,6 +71,8 @@ export function sanitize(data: Float32Array, recipe: ResolvedRecipe, file: strin
   const maxR = recipe.sanitize.maxRadiance;
   for (let i = 0; i < data.length; i++) {
     const v = data[i]!;
+    // The common case first: one range test (false for NaN).
+    if (v >= 0 && v <= maxR) continue;
     if (v !== v) { counts.nan++; data[i] = 0; }
     else if (v === Infinity) { counts.infinite++; data[i] = maxR; }
     else if (v === -Infinity) { counts.infinite++; data[i] = 0; }
