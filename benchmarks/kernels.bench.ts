@@ -1,10 +1,10 @@
 /**
- * The other kernels, one thread (inline): resampling an equirect to a cube, the pyramid reduction, the
+ * The other kernels, one thread (inline): splatting an equirect onto a cube, the pyramid reduction, the
  * direct irradiance convolution and the reference quadrature, in evaluations per second.
  */
 
 import { sharedFloat32, toShared, WorkerPool } from '@lightkiln/pool';
-import { buildPyramid, convolutionSource, convolveIrradiance, reducePyramid, referenceQuadrature, referenceSpecular, resampleEquirect, supersampleFactor } from '@lightkiln/bake/kernels';
+import { buildPyramid, convolutionSource, convolveIrradiance, nodeGeometry, reducePyramid, referenceQuadrature, referenceSpecular, splatEquirect, splatSubcells } from '@lightkiln/bake/kernels';
 import { record, runBench, syntheticSky } from './common.js';
 
 export async function kernelsBench(): Promise<void> {
@@ -14,9 +14,13 @@ export async function kernelsBench(): Promise<void> {
   const inline = new WorkerPool({ threads: 0 });
   const pyramid = await buildPyramid(source, 256, 0, { pool: inline, signal: undefined, onProgress: undefined, targetTileCost: undefined });
   const size = 256;
-  const k = supersampleFactor(source, size);
-  const cube = new Float64Array(6 * size * size * 3);
-  const resampleParams = { size, supersample: k, rotCos: 1, rotSin: 0, srcWidth: W, srcHeight: W / 2 };
+  const subcells = splatSubcells(W, W / 2, size);
+  const splatBuffers = { src: source.data, pyramid: sharedFloat32(6 * size * size * 3), centroids: sharedFloat32(6 * size * size * 3), geometry: nodeGeometry(size).data };
+  const splatParams = { size, srcWidth: W, srcHeight: W / 2, subcells, rotCos: 1, rotSin: 0, brightLuminance: Infinity, brightRefinement: 1 };
+  // The stage's tiles: half faces.
+  const splatAll = (): void => {
+    for (let h = 0; h < 12; h++) splatEquirect(splatBuffers, (h * size * size) / 2, ((h + 1) * size * size) / 2, splatParams);
+  };
   const reduceParams = { size: 128, srcOffset: pyramid.offsets[0]!, dstOffset: pyramid.offsets[1]! };
   const level = 2; // 64^2 source faces for the convolution
   const convSource = convolutionSource(pyramid, level);
@@ -29,12 +33,12 @@ export async function kernelsBench(): Promise<void> {
   const refDst = sharedFloat32(6 * 16 * 16 * 3);
   const refParams = { srcSize: 64, subdivision: q.subdivision, cosNear: q.cosNear, size: 16, levelBegin: 0, dstOffset: 0, alpha: 0.25 };
   const results = await runBench('kernels, one thread', {
-    'resample 2048x1024 -> 6x256^2': () => resampleEquirect({ src: source.data, dst: cube }, 0, 6 * size * size, resampleParams),
+    'splat 2048x1024 -> 6x256^2': splatAll,
     'reduce 256 -> 128': () => reducePyramid({ pyramid: pyramid.data }, 0, 6 * 128 * 128, reduceParams),
     'irradiance 6x32^2 from 6x64^2': () => convolveIrradiance({ srcDirs: convSource, dst: irr }, 0, 6 * 32 * 32, irrParams),
     'reference 6x16^2 over 6x64^2': () => referenceSpecular({ pyramid: small.data, dst: refDst }, 0, 6 * 16 * 16, refParams),
   }, { iterations: 5 });
-  record('resample (supersampled bilinear)', (6 * size * size * k * k) / (results['resample 2048x1024 -> 6x256^2']!.medianMs / 1000) / 1e6, 'M points/s/thread', `${k}x${k} points per texel`);
+  record('equirect splat', (W * (W / 2) * subcells * subcells) / (results['splat 2048x1024 -> 6x256^2']!.medianMs / 1000) / 1e6, 'M sub-cells/s/thread', `${subcells}x${subcells} sub-cells per pixel`);
   record('pyramid reduction', (6 * 128 * 128) / (results['reduce 256 -> 128']!.medianMs / 1000) / 1e6, 'M texels/s/thread');
   record('irradiance convolution', (6 * 32 * 32 * 6 * 64 * 64) / (results['irradiance 6x32^2 from 6x64^2']!.medianMs / 1000) / 1e6, 'M texel pairs/s/thread');
   record('reference quadrature', (6 * 16 * 16 * 6 * 64 * 64) / (results['reference 6x16^2 over 6x64^2']!.medianMs / 1000) / 1e6, 'M source texels/s/thread', `fine ${q.subdivision}^2 points near the peak`);

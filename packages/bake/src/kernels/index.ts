@@ -3,7 +3,7 @@
 import { convolveIrradiance, referenceSpecular } from './convolve.js';
 import { integrateDfgTable } from './dfg.js';
 import { reducePyramid } from './reduce.js';
-import { resampleCube, resampleEquirect } from './resample.js';
+import { resampleCube } from './resample.js';
 import { buildNodeTable } from './node-table.js';
 import { buildNodeGeometry } from '../stages/node-geometry.js';
 import { prefilterQuadrature } from './quadrature.js';
@@ -13,7 +13,6 @@ import { prefilterSpecular } from './specular.js';
 
 /** Every kernel by name; stages/context.ts derives each kernel's parameter type from this interface. */
 export interface BakeKernels {
-  readonly resampleEquirect: typeof resampleEquirect;
   readonly resampleCube: typeof resampleCube;
   readonly reducePyramid: typeof reducePyramid;
   readonly prefilterSpecular: typeof prefilterSpecular;
@@ -27,7 +26,6 @@ export interface BakeKernels {
 }
 
 export const kernels: BakeKernels = {
-  resampleEquirect,
   resampleCube,
   reducePyramid,
   prefilterSpecular,

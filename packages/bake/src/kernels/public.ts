@@ -10,7 +10,7 @@ export { referenceSpecular, convolveIrradiance } from './convolve.js';
 export type { ConvolveParams, ReferenceParams } from './convolve.js';
 export { integrateDfgTable } from './dfg.js';
 export type { DfgParams } from './dfg.js';
-export { resampleEquirect, resampleCube } from './resample.js';
+export { resampleCube } from './resample.js';
 export { splatEquirect } from './splat.js';
 export { Landing } from './splat-bright.js';
 export { nodeGeometry } from '../stages/node-geometry.js';
