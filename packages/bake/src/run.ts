@@ -6,7 +6,7 @@ import type { EntryCache } from './cache/entry.js';
 import { aborted, LightkilnError } from './errors.js';
 import type { BakeEvent } from './events.js';
 import type { Keys } from './keys.js';
-import { levelDescriptors, type ResolvedRecipe } from './recipe.js';
+import { levelDescriptors, pyramidBaseSize, type ResolvedRecipe } from './recipe.js';
 import { warmPool, type StageContext } from './stages/context.js';
 import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
 import { irradianceCube, projectSh9, type ShResult } from './stages/irradiance.js';
@@ -58,7 +58,7 @@ export class BakeRun {
     if (this.#source === null) {
       warmPool(this.ctx);
       // The quadrature's node geometry is built on a worker while this thread decodes.
-      nodeGeometryOnPool(this.recipe.size, this.ctx).catch(() => undefined);
+      nodeGeometryOnPool(pyramidBaseSize(this.recipe), this.ctx).catch(() => undefined);
     }
     this.#source ??= this.#timed('decode', async () => {
       const entry = await this.cache.get(this.keys.source);
@@ -84,12 +84,12 @@ export class BakeRun {
     this.#pyramid ??= (async () => {
       const entry = await this.cache.get(this.keys.pyramid);
       if (entry !== null) {
-        const layout = pyramidLayout(this.recipe.size);
+        const layout = pyramidLayout(pyramidBaseSize(this.recipe));
         return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
       }
       const source = await this.source();
       this.#check();
-      const pyramid = await this.#timed('resample', () => buildPyramid(source, this.recipe.size, this.recipe.rotationDeg, this.ctx));
+      const pyramid = await this.#timed('resample', () => buildPyramid(source, pyramidBaseSize(this.recipe), this.recipe.rotationDeg, this.ctx));
       await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data, pyramid.centroids] });
       // Nothing reads the decoded source after the pyramid (the pyramid is memoised): let it go.
       this.#source = SOURCE_RELEASED;
@@ -116,7 +116,7 @@ export class BakeRun {
         const { pyramid } = await this.pyramid();
         this.#check();
         const computed: LevelResult[] = [];
-        if (missing[0] === 0) computed.push(mirrorLevel(pyramid));
+        if (missing[0] === 0) computed.push(mirrorLevel(pyramid, r.size));
         const descriptors = levelDescriptors(r);
         const requests = missing.filter((m) => m > 0).map((m) => descriptors[m]!);
         computed.push(...(await this.#timed('specular', () => prefilterLevels(pyramid, requests, r, this.ctx))));

@@ -99,6 +99,8 @@ const cases = [
   { name: 'a 1-degree sun 1e5 x the sky at a cube corner', sun: { direction: norm([1, 1, 1]), diameterDeg: 1, ratio: 1e5 }, width: 1024, size: 128, rotationDeg: 0 },
   { name: 'a 0.5-degree sun 1e4 x the sky on a face edge, turned 30 degrees', sun: { direction: norm([0.45, 0.3, 1]), diameterDeg: 0.5, ratio: 1e4 }, width: 1024, size: 64, rotationDeg: 30 },
   { name: 'a 0.8-degree sun 3e4 x the sky on the -Y face, coarse source', sun: { direction: norm([0.2, -1, 0.3]), diameterDeg: 0.8, ratio: 3e4 }, width: 512, size: 64, rotationDeg: 0 },
+  { name: 'a 2-degree disc 1e4 x the sky', sun: { direction: norm([0.3, 0.5, -0.8]), diameterDeg: 2, ratio: 1e4 }, width: 1024, size: 64, rotationDeg: 0 },
+  { name: 'a 4-degree disc 3000 x the sky, turned 45 degrees', sun: { direction: norm([0.3, 0.5, -0.8]), diameterDeg: 4, ratio: 3e3 }, width: 1024, size: 64, rotationDeg: 45 },
 ];
 
 describe('the specular chain against the exact convolution of its own source image', () => {
@@ -165,10 +167,10 @@ describe('the specular chain against the exact convolution of its own source ima
         const rmse = Math.sqrt(se / even.size) / (sum / even.size);
         report.push(`L${m} (r ${roughness[m]!.toFixed(2)}) max ${(100 * worst).toFixed(3)}% RMSE ${(100 * rmse).toFixed(3)}%`);
         // RMSE over the even spread (relative to its mean); the worst texel over all picks, the peak
-        // included. Measured worst: 0.19% from 1024-wide sources; 0.96% at level 1 from the 512-wide
-        // one, where a 1.4-degree level-0 texel holds the whole sun and the lobe is 1.8 degrees wide.
-        expect(worst, `level ${m} worst texel`).toBeLessThan(0.01);
-        expect(rmse, `level ${m} RMSE over the mean`).toBeLessThan(0.005);
+        // included (measured: at most 0.2% with the pyramid's finest level at twice the output size).
+        expect(worst, `level ${m} worst texel`).toBeLessThan(0.005);
+        // Over the mean: a disc that holds most of the level's light makes its peak texels count many times.
+        expect(rmse, `level ${m} RMSE over the mean`).toBeLessThan(0.01);
       }
       console.log(`${c.name}: ${report.join(', ')}`);
     });

