@@ -3,20 +3,15 @@
  * stamp that lets an unchanged bake skip loading the bake, and --events JSON lines.
  */
 
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
-import { gradientSky, runCli, type CliRun } from './helpers/cli.js';
+import { describe, expect, it } from 'vitest';
+import { cliWorkspace, gradientSky } from './helpers/cli.js';
 import { encodeHdr } from '@lightkiln/codecs';
 
-const work = mkdtempSync(join(tmpdir(), 'lightkiln-cli-build-'));
-afterAll(() => rmSync(work, { recursive: true, force: true }));
-const run = (args: string[], cwd = work): CliRun => runCli(args, cwd);
+const { work, skyPath, small: smallFlags, run } = cliWorkspace('lightkiln-cli-build-');
+const small = [...smallFlags];
 const sky = gradientSky;
-const skyPath = join(work, 'sky.hdr');
-writeFileSync(skyPath, encodeHdr({ width: 64, height: 32, channels: 3, data: sky(64, 32) }));
-const small = ['--size', '16', '--samples', 'draft', '--no-cache'];
 
 describe('lightkiln bake for build systems', () => {
   it('writes a Make-syntax depfile: every artifact as a target, every file read as a prerequisite, escaped (GNU Make rules)', () => {

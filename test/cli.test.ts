@@ -5,23 +5,18 @@
  */
 
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync, readdirSync, readFileSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { PNG } from 'pngjs';
-import { encodeExr, encodeHdr, encodePfm, encodePng } from '@lightkiln/codecs';
-import { cli, gradientSky, runCli, type CliRun } from './helpers/cli.js';
+import { encodeExr, encodePfm, encodePng } from '@lightkiln/codecs';
+import { cli, cliWorkspace, gradientSky } from './helpers/cli.js';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
-const work = mkdtempSync(join(tmpdir(), 'lightkiln-cli-'));
-afterAll(() => rmSync(work, { recursive: true, force: true }));
-const run = (args: string[], cwd = work): CliRun => runCli(args, cwd);
+const { work, skyPath, small: smallFlags, run } = cliWorkspace('lightkiln-cli-');
+const small = [...smallFlags];
 const sky = gradientSky;
-const skyPath = join(work, 'sky.hdr');
-writeFileSync(skyPath, encodeHdr({ width: 64, height: 32, channels: 3, data: sky(64, 32) }));
-const small = ['--size', '16', '--samples', 'draft', '--no-cache'];
 
 describe('lightkiln bake', () => {
   it('prints exactly one JSON document with --json, progress only on stderr, exit 0', () => {

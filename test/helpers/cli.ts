@@ -1,8 +1,12 @@
 /** Running the built `lightkiln` command in a child process, and the small sky the CLI tests bake. */
 
 import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { afterAll } from 'vitest';
+import { encodeHdr } from '@lightkiln/codecs';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 export const cli = join(root, 'packages/cli/dist/main.js');
@@ -26,4 +30,21 @@ export function gradientSky(width: number, height: number): Float32Array {
     }
   }
   return data;
+}
+
+/** A temporary folder for one CLI test file (removed after it), with the small sky written as sky.hdr. */
+export interface CliWorkspace {
+  readonly work: string;
+  readonly skyPath: string;
+  /** Flags for a quick bake without the cache. */
+  readonly small: readonly string[];
+  readonly run: (args: string[], cwd?: string) => CliRun;
+}
+
+export function cliWorkspace(prefix: string): CliWorkspace {
+  const work = mkdtempSync(join(tmpdir(), prefix));
+  afterAll(() => rmSync(work, { recursive: true, force: true }));
+  const skyPath = join(work, 'sky.hdr');
+  writeFileSync(skyPath, encodeHdr({ width: 64, height: 32, channels: 3, data: gradientSky(64, 32) }));
+  return { work, skyPath, small: ['--size', '16', '--samples', 'draft', '--no-cache'], run: (args, cwd = work) => runCli(args, cwd) };
 }
