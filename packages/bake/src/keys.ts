@@ -6,7 +6,7 @@
 
 import { stageKey } from './hash.js';
 import { STAGE_VERSIONS } from './version.js';
-import { levelDescriptors, pyramidBaseSize, type ResolvedRecipe } from './recipe.js';
+import { levelDescriptors, type ResolvedRecipe } from './recipe.js';
 
 export { STAGE_VERSIONS } from './version.js';
 
@@ -34,7 +34,8 @@ export function lutKeys(options: ResolvedRecipe['dfg'], supercompression: Resolv
 export function computeKeys(recipe: ResolvedRecipe, inputHash: string): Keys {
   const V = STAGE_VERSIONS;
   const source = stageKey('source', V.source!, { inputHash, layout: recipe.input.layout, sanitize: recipe.sanitize });
-  const pyramid = stageKey('pyramid', V.pyramid!, { source, size: pyramidBaseSize(recipe), rotationDeg: recipe.rotationDeg });
+  // The pyramid's base size follows from the recipe and the source (pyramidBaseSize), both in this key.
+  const pyramid = stageKey('pyramid', V.pyramid!, { source, size: recipe.size, roughness: recipe.roughness, quality: recipe.quality === 'reference' ? 'reference' : 'default', rotationDeg: recipe.rotationDeg });
   const levels = levelDescriptors(recipe).map((d) => stageKey('level', V.level!, {
     pyramid, level: d.level, size: d.faceSize, roughness: d.perceptualRoughness, samples: d.requestedSamples,
     filtered: recipe.filtered, lodBias: recipe.lodBias, clampLuminance: recipe.clampLuminance, rotateSequence: recipe.rotateSequence,

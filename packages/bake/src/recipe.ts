@@ -275,18 +275,21 @@ export function levelDescriptors(recipe: Pick<ResolvedRecipe, 'size' | 'roughnes
 
 /**
  * Face size of the source pyramid's finest level: the output size, doubled (up to 4 x and 512) while a
- * face-centre texel (2 / size radians) is wider than half the GGX alpha of the sharpest level r > 0. The
- * quadrature's finest nodes then stay small against every lobe, so a sun a few texels wide is integrated
- * from its own pieces (measured against the convolution of the image: a 2-degree 1e4 x sun at r = 0.18 on
- * 32 x 32 faces, worst texel 0.29% with 64 x 64 leaves, 0.13% with 128 x 128; a 128 bake takes about 10%
- * longer). The mirror level is the pyramid level of the output size. Defaults: 64 -> 128, 128 -> 256,
- * 256 and up unchanged.
+ * face-centre texel (2 / size radians) is wider than half the GGX alpha of the sharpest level r > 0, and
+ * while the source still resolves it (a texel at least two source pixels wide; `sourcePixelAngle`, radians,
+ * unknown before decoding gives the upper bound). The quadrature's finest nodes then stay small against
+ * every lobe, so a sun a few texels wide is integrated from its own pieces (measured against the
+ * convolution of the image: a 2-degree 1e4 x sun at r = 0.18 on 32 x 32 faces, worst texel 0.29% with
+ * 64 x 64 leaves, 0.13% with 128 x 128; a 128 bake takes about 10% longer). The mirror level is the
+ * pyramid level of the output size. Defaults from a 2048-wide image: 64 -> 128, 128 -> 256, 256 and up
+ * unchanged; quality 'reference' keeps the output size (its cost grows as the base size^4).
  */
-export function pyramidBaseSize(recipe: Pick<ResolvedRecipe, 'size' | 'roughness'>): number {
+export function pyramidBaseSize(recipe: Pick<ResolvedRecipe, 'size' | 'roughness' | 'quality'>, sourcePixelAngle = 0): number {
+  if (recipe.quality === 'reference') return recipe.size;
   const sharpest = recipe.roughness.length > 1 ? recipe.roughness[1]! : 1;
   const alpha = sharpest * sharpest;
   let base = recipe.size;
-  while (base < 4 * recipe.size && base < 512 && 2 / base > 0.5 * alpha) base *= 2;
+  while (base < 4 * recipe.size && base < 512 && 2 / base > 0.5 * alpha && 1 / (2 * base) >= sourcePixelAngle) base *= 2;
   return base;
 }
 
@@ -342,7 +345,7 @@ export function resolveRecipe(recipe: Recipe): ResolvedRecipe {
     if (i > 0 && s > r.limits.maxSamples) throw invalidRecipe(`samples.${i}: ${s} exceeds limits.maxSamples (${r.limits.maxSamples})`);
   });
   let work = 0;
-  const base = pyramidBaseSize({ size: r.size, roughness });
+  const base = pyramidBaseSize({ size: r.size, roughness, quality: r.quality });
   for (let m = 1; m < levels; m++) work += 6 * Math.max(1, r.size >> m) ** 2 * (r.quality === 'reference' ? 6 * base * base : samples[m]!);
   work += r.dfg.enabled ? r.dfg.size * r.dfg.size * r.dfg.samples : 0;
   // The irradiance cube by direct convolution: every output texel sums every texel of a source level of

@@ -18,6 +18,11 @@ import { mirrorLevel, prefilterLevels, type LevelResult } from './stages/specula
 const SOURCE_RELEASED: Promise<SourceImage> = Promise.reject(new LightkilnError('BAKE_FAILED', 'internal: the decoded source was read after the pyramid was built'));
 SOURCE_RELEASED.catch(() => undefined);
 
+/** Angular size of a source pixel (radians): the larger of an equirect pixel's sides, or a cube texel at its face centre. */
+function sourcePixelAngle(source: SourceImage): number {
+  return source.kind === 'equirect' ? Math.max(Math.PI / source.height, (2 * Math.PI) / source.width) : 2 / source.size;
+}
+
 export function toF32(a: unknown): Float32Array {
   if (!(a instanceof Float32Array)) throw new LightkilnError('BAKE_FAILED', 'cache entry has an unexpected layout');
   return a;
@@ -84,13 +89,15 @@ export class BakeRun {
     this.#pyramid ??= (async () => {
       const entry = await this.cache.get(this.keys.pyramid);
       if (entry !== null) {
-        const layout = pyramidLayout(pyramidBaseSize(this.recipe));
-        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: (entry.meta as { sanitized: SanitizeCounts }).sanitized };
+        const meta = entry.meta as { sanitized: SanitizeCounts; base: number };
+        const layout = pyramidLayout(meta.base);
+        return { pyramid: { sizes: layout.sizes, offsets: layout.offsets, data: toShared(toF32(entry.arrays[0])), centroids: toShared(toF32(entry.arrays[1])) }, sanitized: meta.sanitized };
       }
       const source = await this.source();
       this.#check();
-      const pyramid = await this.#timed('resample', () => buildPyramid(source, pyramidBaseSize(this.recipe), this.recipe.rotationDeg, this.ctx));
-      await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized }, arrays: [pyramid.data, pyramid.centroids] });
+      const base = pyramidBaseSize(this.recipe, sourcePixelAngle(source));
+      const pyramid = await this.#timed('resample', () => buildPyramid(source, base, this.recipe.rotationDeg, this.ctx));
+      await this.cache.put(this.keys.pyramid, { meta: { sanitized: source.sanitized, base }, arrays: [pyramid.data, pyramid.centroids] });
       // Nothing reads the decoded source after the pyramid (the pyramid is memoised): let it go.
       this.#source = SOURCE_RELEASED;
       return { pyramid, sanitized: source.sanitized };
