@@ -157,14 +157,15 @@ export function lobeIntegral(alphaSquared: number): number {
 
 /**
  * The finest pyramid level the quadrature's tree reaches: level 0, unless the next level's texels are
- * already within a quarter of the narrowest lobe's width (angular radius below 0.5 QUADRATURE_THETA
- * QUADRATURE_GAMMA alpha), as at 1024 and above with the default roughness spacing; a sun is then
- * described by its luminance centroid and spread within texels that small. (Leaves half the acceptance
- * radius left a 2-degree sun 0.29% off at its peak; leaves a quarter of the lobe, 0.12%.) Skipping
- * level 0 saves three quarters of the node table.
+ * already within the acceptance radius at the peak of the narrowest lobe of the chain (angular radius
+ * below QUADRATURE_THETA QUADRATURE_GAMMA alpha), as at 1024 and above with the default roughness
+ * spacing; then only light brighter than its surroundings (a sun) would be resolved further, and its
+ * luminance centroid and spread stand in for that. Skipping level 0 saves three quarters of the node table.
+ * (A pyramid whose base is finer than the output, recipe.ts pyramidBaseSize, is always walked to level 0:
+ * that base exists because the output's texels were too coarse for the sharpest lobe.)
  */
 export function finestNodeLevel(pyramid: Pyramid, geometry: NodeGeometry, narrowestAlpha: number): number {
-  const limit = 0.5 * QUADRATURE_THETA * QUADRATURE_GAMMA * narrowestAlpha;
+  const limit = QUADRATURE_THETA * QUADRATURE_GAMMA * narrowestAlpha;
   let level = 0;
   // The largest radius of a level is at its face centre; rho of the central texel (NODE_STRIDE field 6).
   while (level + 1 < pyramid.sizes.length - 2) {
@@ -197,7 +198,8 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
   const geometry = await nodeGeometryOnPool(pyramid.sizes[0]!, ctx);
   const levels = pyramid.sizes.length;
   const narrowest = Math.min(...requests.map((req) => alphaFromPerceptualRoughness(req.perceptualRoughness)));
-  const finest = exhaustive ? 0 : finestNodeLevel(pyramid, geometry, narrowest);
+  const outputSize = requests[0]!.faceSize << requests[0]!.level;
+  const finest = exhaustive || pyramid.sizes[0]! > outputSize ? 0 : finestNodeLevel(pyramid, geometry, narrowest);
   const levelTable = sharedInt32(levels * LEVEL_TABLE_STRIDE);
   for (let k = 0; k < levels; k++) {
     levelTable[k * LEVEL_TABLE_STRIDE] = pyramid.sizes[k]!;
