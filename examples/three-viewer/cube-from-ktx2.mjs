@@ -38,11 +38,16 @@ export function cubeTextureFromKtx2(loaded) {
     THREE.LinearFilter, levels.length > 1 ? THREE.LinearMipmapLinearFilter : THREE.LinearFilter, loaded.format, loaded.type);
   // three reads a cube's mips from texture.mipmaps[j].image[face] (level j + 1).
   cube.mipmaps = levels.slice(1).map((level) => ({ image: [0, 1, 2, 3, 4, 5].map((f) => faceOf(level, f)) }));
-  cube.generateMipmaps = false;
-  cube.flipY = false;
-  cube.colorSpace = THREE.NoColorSpace;
-  cube.needsUpdate = true;
-  return cube;
+  return asStored(cube);
+}
+
+/** Texels used as stored: no generated mips, no flip, linear values (no colour-space conversion). */
+function asStored(texture) {
+  texture.generateMipmaps = false;
+  texture.flipY = false;
+  texture.colorSpace = THREE.NoColorSpace;
+  texture.needsUpdate = true;
+  return texture;
 }
 
 /** The 2D DFG table as loaded (A in red, B in green), filtered linearly and clamped at its edges. */
@@ -53,11 +58,7 @@ export function dfgTextureFromKtx2(loaded) {
   texture.magFilter = THREE.LinearFilter;
   texture.wrapS = THREE.ClampToEdgeWrapping;
   texture.wrapT = THREE.ClampToEdgeWrapping;
-  texture.generateMipmaps = false;
-  texture.flipY = false;
-  texture.colorSpace = THREE.NoColorSpace;
-  texture.needsUpdate = true;
-  return texture;
+  return asStored(texture);
 }
 
 /**

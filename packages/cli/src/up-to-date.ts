@@ -7,7 +7,8 @@
  * check), as make and git decide on file metadata. Any difference, a missing stamp or an option that asks
  * for live output (--json, --events) takes the ordinary path, which reads the content-hash cache.
  *
- * Only node built-ins are imported here: this runs before anything else is loaded.
+ * Only node built-ins and the constants of `@lightkiln/bake/version` are imported here: this runs before
+ * anything else is loaded.
  */
 
 import { createHash } from 'node:crypto';
@@ -49,7 +50,7 @@ export function stampPath(argv: readonly string[], cwd: string = process.cwd()):
   let cacheDir = '.lightkiln-cache';
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
-    if (a === '--no-cache' || a === '--json' || a === '--events' || a === '--help' || a === '--cache=false') return null;
+    if (a === '--no-cache' || a === '--json' || a === '--events' || a === '--help') return null;
     if (a === '--cache-dir' && i + 1 < argv.length) cacheDir = argv[i + 1]!;
     else if (a.startsWith('--cache-dir=')) cacheDir = a.slice('--cache-dir='.length);
   }
