@@ -43,6 +43,21 @@ export interface PoolJob<P = unknown> {
   readonly onProgress?: (progress: JobProgress) => void;
   /** Minimum milliseconds between progress events (the last event is always sent). Default 100. */
   readonly progressIntervalMs?: number;
+  /**
+   * 'foreground' (default) or 'background': a background job's tiles go to a worker only while no
+   * foreground job has a tile waiting, so work off the critical path (a lookup table, a side artifact)
+   * fills idle workers instead of delaying the chain that decides when a bake ends. Results do not depend
+   * on it.
+   */
+  readonly priority?: 'foreground' | 'background';
+}
+
+/** One running threaded job as the dispatcher sees it. */
+interface ActiveJob {
+  readonly background: boolean;
+  /** Launches the job's next tile; false when it has none left to launch. */
+  readonly launchNext: () => void;
+  readonly hasNext: () => boolean;
 }
 
 export interface JobResult {
@@ -76,6 +91,35 @@ export class WorkerPool {
   }
 
   #failActive: Set<(error: PoolError) => void> = new Set();
+  /** Threaded jobs with tiles left to launch, in arrival order; tiles in flight across all of them. */
+  #active: ActiveJob[] = [];
+  #inFlight = 0;
+  #turn = 0;
+
+  /**
+   * Hands tiles to piscina until `threads + 1` are in flight (one queued behind the running ones hides
+   * the message latency without letting a background tile wait ahead of a later foreground one for
+   * more than a tile). Foreground jobs first; jobs of one priority take turns, so concurrent jobs
+   * interleave.
+   */
+  #pump(): void {
+    const limit = this.threads + 1;
+    while (this.#inFlight < limit) {
+      const jobs = this.#active;
+      let picked: ActiveJob | undefined;
+      for (const background of [false, true]) {
+        for (let i = 0; i < jobs.length && picked === undefined; i++) {
+          const job = jobs[(this.#turn + i) % jobs.length]!;
+          if (job.background === background && job.hasNext()) picked = job;
+        }
+        if (picked !== undefined) break;
+      }
+      if (picked === undefined) return;
+      this.#turn = (jobs.indexOf(picked) + 1) % jobs.length;
+      this.#inFlight++;
+      picked.launchNext();
+    }
+  }
 
   #workers(): Piscina {
     if (this.#piscina === null) {
@@ -145,22 +189,46 @@ export class WorkerPool {
     } catch (error) {
       return Promise.reject(error);
     }
-    // Each job keeps a small window of tiles queued, so concurrent jobs interleave in the FIFO queue.
-    const window = Math.max(2, this.threads * 2);
     const interval = job.progressIntervalMs ?? 100;
     return new Promise<JobResult>((resolve, reject) => {
       let next = 0;
-      let inFlight = 0;
       let done = 0;
       let tilesDone = 0;
       let settled = false;
       let lastProgress = 0;
+      const active: ActiveJob = {
+        background: job.priority === 'background',
+        hasNext: () => !settled && next < tiles.length,
+        launchNext: () => {
+          const tile = tiles[next++]!;
+          const task: TileTask = {
+            kernel: job.kernel,
+            buffers: job.buffers,
+            begin: tile.begin,
+            end: tile.end,
+            params: job.segmentParams === undefined ? job.params : job.segmentParams[tile.segment],
+          };
+          piscina.run(task).then(() => {
+            this.#tileEnded();
+            if (settled) return;
+            done += tile.cost;
+            tilesDone++;
+            report();
+            if (tilesDone === tiles.length) finish(null);
+          }, (error: unknown) => {
+            this.#tileEnded();
+            if (settled) return;
+            finish(this.#closed ? poolClosedError() : tileFailedError(job.kernel.name, describeTile(tile, job.segments), error));
+          });
+        },
+      };
       const onAbort = (): void => finish(abortedError(job.signal?.reason));
       const finish = (error: PoolError | null): void => {
         if (settled) return;
         settled = true;
         job.signal?.removeEventListener('abort', onAbort);
         this.#failActive.delete(finish);
+        this.#retire(active);
         if (error === null) resolve({ tiles: tiles.length, cost: total, elapsedMs: performance.now() - started });
         else reject(error);
       };
@@ -174,39 +242,29 @@ export class WorkerPool {
           job.onProgress({ done, total, tilesDone, tilesTotal: tiles.length });
         }
       };
-      const launch = (): void => {
-        while (!settled && inFlight < window && next < tiles.length) {
-          const tile = tiles[next++]!;
-          inFlight++;
-          const task: TileTask = {
-            kernel: job.kernel,
-            buffers: job.buffers,
-            begin: tile.begin,
-            end: tile.end,
-            params: job.segmentParams === undefined ? job.params : job.segmentParams[tile.segment],
-          };
-          piscina.run(task).then(() => {
-            inFlight--;
-            if (settled) return;
-            done += tile.cost;
-            tilesDone++;
-            report();
-            if (tilesDone === tiles.length) finish(null);
-            else launch();
-          }, (error: unknown) => {
-            inFlight--;
-            if (settled) return;
-            finish(this.#closed ? poolClosedError() : tileFailedError(job.kernel.name, describeTile(tile, job.segments), error));
-          });
-        }
-      };
       if (tiles.length === 0) {
         report();
         finish(null);
         return;
       }
-      launch();
+      this.#active.push(active);
+      this.#pump();
     });
+  }
+
+  /** A tile came back (done or failed): its slot goes to the next waiting tile. */
+  #tileEnded(): void {
+    this.#inFlight--;
+    this.#pump();
+  }
+
+  /** A settled job leaves the dispatcher (its tiles in flight still end through #tileEnded). */
+  #retire(job: ActiveJob): void {
+    const i = this.#active.indexOf(job);
+    if (i < 0) return;
+    this.#active.splice(i, 1);
+    if (this.#turn > i) this.#turn--;
+    if (this.#turn >= this.#active.length) this.#turn = 0;
   }
 
   async #runInline<P>(job: PoolJob<P>, tiles: readonly Tile[]): Promise<JobResult> {
@@ -253,6 +311,8 @@ export class WorkerPool {
   async close(): Promise<void> {
     if (this.#closed) return;
     this.#closed = true;
+    // Jobs waiting in the dispatcher have no tile in flight for piscina to reject: fail them here.
+    for (const fail of [...this.#failActive]) fail(poolClosedError());
     const piscina = this.#piscina;
     this.#piscina = null;
     if (piscina !== null) await piscina.destroy();

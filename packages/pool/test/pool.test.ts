@@ -159,6 +159,46 @@ describe('concurrency', () => {
     expect(order).toEqual(['small', 'big']);
   });
 
+  it('runs a foreground job ahead of a background job submitted before it, with the same results', async () => {
+    const p = new WorkerPool({ threads: 2 });
+    const clock = sharedInt32(1);
+    const back = { clock, order: sharedInt32(64) };
+    const front = { clock, order: sharedInt32(64) };
+    const segments = [{ begin: 0, end: 64, costPerItem: 1 }];
+    // One item per tile: the background job has 64 tiles queued when the foreground job arrives.
+    const b = p.run({ kernel: kernel('stamp'), buffers: back, segments, targetTileCost: 1, priority: 'background' });
+    const f = p.run({ kernel: kernel('stamp'), buffers: front, segments, targetTileCost: 1 });
+    await Promise.all([b, f]);
+    // At most threads + 1 background tiles were handed out before the foreground job came.
+    const lastFront = Math.max(...front.order);
+    const backBefore = [...back.order].filter((t) => t < lastFront).length;
+    expect(backBefore).toBeLessThanOrEqual(3);
+    expect(new Set([...front.order, ...back.order]).size).toBe(128);
+    const mixed = inputs();
+    const plain = inputs();
+    await Promise.all([
+      p.run({ kernel: kernel('mix'), buffers: mixed, segments: faceSegments, params: { work: 4 }, targetTileCost: 6400, priority: 'background' }),
+      p.run({ kernel: kernel('mix'), buffers: plain, segments: faceSegments, params: { work: 4 }, targetTileCost: 6400 }),
+    ]);
+    expect(hash(mixed.dst)).toBe(hash(plain.dst));
+    await p.close();
+  });
+
+  it('rejects a job still waiting for a worker when the pool closes', async () => {
+    const p = new WorkerPool({ threads: 1 });
+    const counter = sharedInt32(1);
+    const gate = sharedInt32(1);
+    const busy = p.run({ kernel: kernel('gated'), buffers: { ...inputs(), counter, gate }, segments: faceSegments, targetTileCost: 1600 });
+    const waiting = p.run({ kernel: kernel('mix'), buffers: inputs(), segments: faceSegments, params: { work: 1 }, priority: 'background' });
+    const rejections = Promise.all([expect(busy).rejects.toMatchObject({ code: 'POOL_CLOSED' }), expect(waiting).rejects.toMatchObject({ code: 'POOL_CLOSED' })]);
+    while (Atomics.load(counter, 0) === 0) await Atomics.waitAsync(counter, 0, 0).value;
+    const closing = p.close();
+    Atomics.store(gate, 0, 1);
+    Atomics.notify(gate, 0);
+    await closing;
+    await rejections;
+  });
+
   it('rejects jobs in flight with POOL_CLOSED when the pool closes, and refuses new ones', async () => {
     const p = new WorkerPool({ threads: 2 });
     const counter = sharedInt32(1);

@@ -1,8 +1,9 @@
 /** What every heavy stage needs: the pool, the kernel module, cancellation and progress. */
 
-import { builtModuleUrl, type KernelRef, type WorkerPool } from '@lightkiln/pool';
+import type { KernelRef, WorkerPool } from '@lightkiln/pool';
 import { invalidOption, LightkilnError } from '../errors.js';
 import type { BakeEvent } from '../events.js';
+import { KERNEL_MODULE } from '../kernel-module.js';
 
 export interface BakeProgress {
   /** Stage name: "resample", "pyramid", "specular", "irradiance", "dfg", "encode". */
@@ -20,8 +21,6 @@ export interface StageContext {
   readonly targetTileCost: number | undefined;
 }
 
-const KERNEL_MODULE = builtModuleUrl(import.meta.url, '../kernels/index.js');
-
 type Kernels = import('../kernels/index.js').BakeKernels;
 /** The names of the bake's kernels. */
 export type KernelName = keyof Kernels;
@@ -38,10 +37,18 @@ export function warmPool(ctx: StageContext): void {
   ctx.pool.warm(KERNEL_MODULE);
 }
 
+/**
+ * Stages off the critical path (resample -> pyramid -> specular levels, the longest chain): their
+ * tiles run on the pool's background priority, filling workers that the chain leaves idle (while the
+ * input decodes, between levels, at the end) instead of delaying it.
+ */
+const BACKGROUND_STAGES: ReadonlySet<string> = new Set(['dfg', 'irradiance']);
+
 /** Pool job options shared by the stages. */
-export function jobOptions(ctx: StageContext, stage: string): { signal?: AbortSignal; onProgress?: (p: { done: number; total: number }) => void; targetTileCost?: number } {
+export function jobOptions(ctx: StageContext, stage: string): { signal?: AbortSignal; onProgress?: (p: { done: number; total: number }) => void; targetTileCost?: number; priority: 'foreground' | 'background' } {
   const onProgress = ctx.onProgress;
   return {
+    priority: BACKGROUND_STAGES.has(stage) ? 'background' : 'foreground',
     ...(ctx.signal !== undefined ? { signal: ctx.signal } : {}),
     ...(onProgress !== undefined ? { onProgress: (p: { done: number; total: number }) => onProgress({ stage, done: p.done, total: p.total }) } : {}),
     ...(ctx.targetTileCost !== undefined ? { targetTileCost: ctx.targetTileCost } : {}),
