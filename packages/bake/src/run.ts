@@ -146,7 +146,7 @@ export class BakeRun {
         return { radiance: a[0], irradiance: a[1] };
       }
       const { pyramid } = await this.pyramid();
-      const sh = await this.#timed('irradiance', async () => projectSh9(pyramid, 0, this.recipe.irradiance.shWindow, this.recipe.irradiance.shWindowWidth));
+      const sh = await this.#timed('irradiance', () => projectSh9(pyramid, 0, this.recipe.irradiance.shWindow, this.recipe.irradiance.shWindowWidth, this.ctx));
       await this.cache.put(this.keys.sh, { meta: {}, arrays: [sh.radiance, sh.irradiance] });
       return sh;
     })();
@@ -157,10 +157,10 @@ export class BakeRun {
     this.#irr ??= (async () => {
       const entry = await this.cache.get(this.keys.irradianceCube);
       if (entry !== null) return toF32(entry.arrays[0]);
-      const sh = await this.sh();
       const { pyramid } = await this.pyramid();
       this.#check();
-      const cube = await this.#timed('irradiance', () => irradianceCube(pyramid, this.recipe.irradiance.cubeSize, this.recipe.irradiance.cubeSource, sh, this.ctx));
+      // The direct convolution runs beside the SH9 projection; only the 'sh9' cube waits for it.
+      const cube = await this.#timed('irradiance', () => irradianceCube(pyramid, this.recipe.irradiance.cubeSize, this.recipe.irradiance.cubeSource, () => this.sh(), this.ctx));
       await this.cache.put(this.keys.irradianceCube, { meta: {}, arrays: [cube] });
       return cube;
     })();

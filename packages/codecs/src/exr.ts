@@ -8,7 +8,7 @@ import { binary16ToFloat32, float32ToBinary16 } from '@lightkiln/math';
 import { zlibSync } from 'fflate';
 import { inflateBounded } from './zlib.js';
 import { badMagic, CodecError, corrupt, invalidArgument, truncated, unsupported } from './errors.js';
-import { allocatePixels, checkByteLength, checkDecodeMemory, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
+import { allocatePixels, checkByteLength, checkDecodeMemory, checkDimensions, checkImage, decodedImage, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
 export const EXR_MAGIC = 20000630;
 const COMPRESSION_NAMES = ['NONE', 'RLE', 'ZIPS', 'ZIP', 'PIZ', 'PXR24', 'B44', 'B44A', 'DWAA', 'DWAB', 'HTJ2K'];
@@ -217,7 +217,7 @@ export function decodeExr(bytes: Uint8Array, options: ExrDecodeOptions = {}): De
   }
   const missing = seen.indexOf(0);
   if (missing >= 0) throw corrupt(file, `no chunk for y ${yMin + missing * linesPerBlock}`);
-  return { width, height, channels: outChannels, data, format: 'exr', issues: countPixelIssues(data) };
+  return decodedImage(width, height, outChannels, data, 'exr');
 }
 
 /**

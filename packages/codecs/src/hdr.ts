@@ -7,7 +7,7 @@
 
 import { floorLog2 } from '@lightkiln/math';
 import { badMagic, CodecError, corrupt, truncated, unsupported } from './errors.js';
-import { allocatePixels, checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
+import { allocatePixels, checkByteLength, checkDimensions, checkImage, decodedImage, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
 export interface HdrHeader {
   /** "#?RADIANCE" or "#?RGBE". */
@@ -137,7 +137,7 @@ export function decodeHdr(bytes: Uint8Array, options: HdrDecodeOptions = {}): De
       data[o + 2] = scan[inner * 4 + 2]! * f;
     }
   }
-  return { width, height, channels: 3, data, format: 'hdr', issues: countPixelIssues(data) };
+  return decodedImage(width, height, 3, data, 'hdr');
 }
 
 /** Reads one scanline of `count` RGBE pixels into scan; returns the new position. */

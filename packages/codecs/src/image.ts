@@ -20,7 +20,20 @@ export interface PixelIssues {
 
 export interface DecodedImage extends FloatImage {
   readonly format: 'hdr' | 'exr' | 'pfm' | 'ktx2';
+  /** NaN, infinite and negative samples (counted on first read: callers that repair pixels anyway skip the pass). */
   readonly issues: PixelIssues;
+}
+
+/** A decoded image whose `issues` are counted when first read (over the pixels as they are then). */
+export function decodedImage(width: number, height: number, channels: number, data: Float32Array, format: DecodedImage['format']): DecodedImage {
+  let issues: PixelIssues | undefined;
+  return {
+    width, height, channels, data, format,
+    get issues(): PixelIssues {
+      issues ??= countPixelIssues(data);
+      return issues;
+    },
+  };
 }
 
 export interface DecodeLimits {

@@ -109,6 +109,51 @@ export function packTexels(format: Ktx2Format, data: Float32Array, texelCount: n
   return out;
 }
 
+/**
+ * Packs RGB float texels (3 interleaved, `texelCount` of them) straight into the format's bytes, without
+ * a float copy in the format's channel count: alpha 1 for the RGBA formats, and each channel above
+ * `max` (the format's largest finite value, per channel) stored as that value. Returns the bytes and the
+ * number of texels clamped. Same bytes as packTexels on the clamped RGBA data.
+ */
+export function packRgbTexels(format: Ktx2Format, rgb: Float32Array, max: readonly [number, number, number]): { bytes: Uint8Array; clamped: number } {
+  const info = FORMATS[format];
+  if (info === undefined || info.channels < 3) throw invalidArgument('ktx2', `format "${String(format)}" does not hold RGB texels`);
+  const texelCount = rgb.length / 3;
+  if (!Number.isInteger(texelCount)) throw invalidArgument('ktx2', `RGB level holds ${rgb.length} values, not a multiple of 3`);
+  const out = new Uint8Array(texelCount * info.bytesPerTexel);
+  const view = new DataView(out.buffer);
+  const [mr, mg, mb] = max;
+  const one16 = float32ToBinary16(1);
+  let clamped = 0;
+  for (let t = 0; t < texelCount; t++) {
+    let r = rgb[t * 3]!;
+    let g = rgb[t * 3 + 1]!;
+    let b = rgb[t * 3 + 2]!;
+    if (r > mr || g > mg || b > mb) {
+      clamped++;
+      if (r > mr) r = mr;
+      if (g > mg) g = mg;
+      if (b > mb) b = mb;
+    }
+    if (format === 'rgba16f') {
+      view.setUint16(t * 8, float32ToBinary16(r), true);
+      view.setUint16(t * 8 + 2, float32ToBinary16(g), true);
+      view.setUint16(t * 8 + 4, float32ToBinary16(b), true);
+      view.setUint16(t * 8 + 6, one16, true);
+    } else if (format === 'rgba32f') {
+      view.setFloat32(t * 16, r, true);
+      view.setFloat32(t * 16 + 4, g, true);
+      view.setFloat32(t * 16 + 8, b, true);
+      view.setFloat32(t * 16 + 12, 1, true);
+    } else if (format === 'rgb9e5') {
+      view.setUint32(t * 4, encodeRgb9e5(r, g, b), true);
+    } else {
+      view.setUint32(t * 4, encodeB10g11r11(r, g, b), true);
+    }
+  }
+  return { bytes: out, clamped };
+}
+
 /** Unpacks a level's bytes back to float texels (info.channels interleaved). */
 export function unpackTexels(format: Ktx2Format, bytes: Uint8Array): Float32Array {
   const info = FORMATS[format];
@@ -137,10 +182,11 @@ export interface Ktx2EncodeInput {
   /** 1 (2D) or 6 (cubemap: +X, -X, +Y, -Y, +Z, -Z). */
   readonly faceCount: 1 | 6;
   /**
-   * Float texels per level, level 0 first; each level is the faces one after another, rows top first,
-   * `channels` of the format interleaved. A partial chain is allowed (any count >= 1).
+   * Texels per level, level 0 first; each level is the faces one after another, rows top first. A
+   * Float32Array holds `channels` of the format interleaved; a Uint8Array holds texels already packed in
+   * the format (packTexels, packRgbTexels). A partial chain is allowed (any count >= 1).
    */
-  readonly levels: readonly Float32Array[];
+  readonly levels: readonly (Float32Array | Uint8Array)[];
   /** Extra key/values (keys must not start with "KTX"/"ktx"); strings are written NUL-terminated. */
   readonly keyValues?: Readonly<Record<string, string | Uint8Array>>;
   /** KTXwriter value; default "lightkiln"; "" omits the entry (the spec only encourages it). */
@@ -177,7 +223,9 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   for (let l = 0; l < levelCount; l++) {
     const w = Math.max(1, width >> l);
     const h = Math.max(1, height >> l);
-    const raw = packTexels(input.format, input.levels[l]!, w * h * faceCount);
+    const level = input.levels[l]!;
+    if (level instanceof Uint8Array && level.length !== w * h * faceCount * info.bytesPerTexel) throw invalidArgument(file, `packed level ${l} holds ${level.length} bytes, expected ${w * h * faceCount * info.bytesPerTexel}`);
+    const raw = level instanceof Uint8Array ? level : packTexels(input.format, level, w * h * faceCount);
     uncompressed.push(raw.length);
     payloads.push(scheme === 3 ? zlibSync(raw, { level: (input.zlibLevel ?? 6) as 0 | 1 | 2 | 3 | 4 | 5 | 6 | 7 | 8 | 9 }) : scheme === 2 ? zstdCompress(raw, input.zstdLevel ?? 3, file) : raw);
   }

@@ -5,7 +5,7 @@
  */
 
 import { badMagic, corrupt, truncated } from './errors.js';
-import { allocatePixels, checkByteLength, checkDimensions, checkImage, countPixelIssues, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
+import { allocatePixels, checkByteLength, checkDimensions, checkImage, decodedImage, resolveDecodeLimits, type DecodedImage, type DecodeLimits, type FloatImage } from './image.js';
 
 const HOST_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 
@@ -57,7 +57,7 @@ export function decodePfm(bytes: Uint8Array, options: PfmDecodeOptions = {}): De
       for (let k = 0; k < rowValues; k++) data[row * rowValues + k] = view.getFloat32((stored * rowValues + k) * 4, little);
     }
   }
-  return { width, height, channels, data, format: 'pfm', issues: countPixelIssues(data) };
+  return decodedImage(width, height, channels, data, 'pfm');
 }
 
 export interface PfmEncodeOptions {

@@ -3,7 +3,7 @@ import { PNG } from 'pngjs';
 import { read as readKtx2 } from 'ktx-parse';
 import { unzlibSync } from 'fflate';
 import {
-  buildDfd, crc32, decodeKtx2, encodeKtx2, encodePng, linearToSrgb, packRgbd, packRgbm, packTexels, toneMapToSrgb8,
+  buildDfd, crc32, decodeKtx2, encodeKtx2, encodePng, linearToSrgb, packRgbd, packRgbm, packRgbTexels, packTexels, toneMapToSrgb8,
   unpackRgbd, unpackRgbm, type FloatImage, type Ktx2Format, type PngFilterChoice,
 } from '@lightkiln/codecs';
 
@@ -89,6 +89,26 @@ describe('KTX 2.0 (Khronos KTX 2.0 spec; DF spec 1.3)', () => {
     expect(Number(v.getBigUint64(88 + 24, true))).toBe(192);
     expect(Number(v.getBigUint64(80, true))).toBe(512);
     expect(Number(v.getBigUint64(88, true))).toBe(768);
+  });
+
+  it('packs RGB texels straight to the format: alpha 1, clamped to the largest finite value, as packTexels on RGBA', () => {
+    const rgb = new Float32Array([0, 0.5, 1, 7e4, 2, 3, 1e-3, 9e9, 65504, 1, 2, 1e6]);
+    // Largest finite binary16 (IEEE 754-2008): 65504 = 0x7bff; 1.0 = 0x3c00.
+    const cases: [Ktx2Format, [number, number, number]][] = [['rgba16f', [65504, 65504, 65504]], ['rgba32f', [3.4e38, 3.4e38, 3.4e38]], ['rgb9e5', [65408, 65408, 65408]], ['b10g11r11', [65024, 65024, 64512]]];
+    for (const [format, max] of cases) {
+      const { bytes, clamped } = packRgbTexels(format, rgb, max);
+      const channels = format.startsWith('rgba') ? 4 : 3;
+      const expanded = new Float32Array(4 * channels);
+      for (let t = 0; t < 4; t++) {
+        for (let c = 0; c < 3; c++) expanded[t * channels + c] = Math.min(rgb[t * 3 + c]!, max[c]!);
+        if (channels === 4) expanded[t * 4 + 3] = 1;
+      }
+      expect(bytes).toEqual(packTexels(format, expanded, 4));
+      expect(clamped).toBe(format === 'rgba32f' ? 0 : 3);
+    }
+    const half = new DataView(packRgbTexels('rgba16f', rgb, [65504, 65504, 65504]).bytes.buffer);
+    expect(half.getUint16(6, true)).toBe(0x3c00);
+    expect(half.getUint16(8, true)).toBe(0x7bff);
   });
 
   it('writes the reference DFD words for every format', () => {

@@ -7,6 +7,7 @@ import { resampleCube } from './resample.js';
 import { buildNodeTable } from './node-table.js';
 import { buildNodeGeometry } from '../stages/node-geometry.js';
 import { prefilterQuadrature } from './quadrature.js';
+import { projectSh9Rows } from './sh-project.js';
 import { splatEquirect } from './splat.js';
 export { warmUp } from './warm-up.js';
 import { prefilterSpecular } from './specular.js';
@@ -23,6 +24,7 @@ export interface BakeKernels {
   readonly referenceSpecular: typeof referenceSpecular;
   readonly convolveIrradiance: typeof convolveIrradiance;
   readonly integrateDfgTable: typeof integrateDfgTable;
+  readonly projectSh9Rows: typeof projectSh9Rows;
 }
 
 export const kernels: BakeKernels = {
@@ -36,4 +38,5 @@ export const kernels: BakeKernels = {
   referenceSpecular,
   convolveIrradiance,
   integrateDfgTable,
+  projectSh9Rows,
 };

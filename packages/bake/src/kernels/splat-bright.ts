@@ -3,6 +3,8 @@
  * accumulators a sub-cell lands in, and the finer cut that carries each bright pixel as its own square.
  */
 
+import { scratchUint8 } from './scratch.js';
+
 /** Accumulators of one tile: where a sub-cell lands and what it brings (one object per tile, not per sub-cell). */
 export class Landing {
   private readonly half: number;
@@ -106,7 +108,7 @@ export function brightPixels(src: Float32Array, W: number, row0: number, row1: n
     for (let i = 0; i < cols; i++, x = x + 1 === W ? 0 : x + 1) {
       const o = (base + x) * 3;
       if (0.2126 * src[o]! + 0.7152 * src[o + 1]! + 0.0722 * src[o + 2]! > threshold) {
-        flags ??= new Uint8Array(rowsN * cols);
+        flags ??= scratchUint8('bright flags', rowsN * cols).fill(0);
         for (let jj = j > 1 ? j - 2 : 0; jj <= j + 2 && jj < rowsN; jj++) {
           for (let ii = i > 1 ? i - 2 : 0; ii <= i + 2 && ii < cols; ii++) flags[jj * cols + ii] = 1;
         }
@@ -114,7 +116,7 @@ export function brightPixels(src: Float32Array, W: number, row0: number, row1: n
     }
   }
   if (flags === null) return null;
-  const rows = new Uint8Array(rowsN);
+  const rows = scratchUint8('bright rows', rowsN).fill(0);
   for (let j = 0; j < rowsN; j++) {
     for (let i = 0; i < cols; i++) {
       if (flags[j * cols + i] === 1) { rows[j] = 1; break; }

@@ -24,6 +24,7 @@
 import { CUBE_FACE_BASIS } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
 import { NODE_STRIDE } from '../stages/node-geometry.js';
+import { scratchFloat64 } from './scratch.js';
 import { brightPixels, landBrightPixels, Landing } from './splat-bright.js';
 
 export interface SplatParams {
@@ -76,11 +77,11 @@ function splatFace(src: Float32Array, dst: Float32Array, cent: Float32Array, geo
   const B = CUBE_FACE_BASIS;
   const b = face * 9;
   const count = end - begin;
-  const omegaSum = new Float64Array(count);
-  const energy = new Float64Array(count * 3);
-  const lumMoment = new Float64Array(count * 3);
-  const geoMoment = new Float64Array(count * 3);
-  const minimum = new Float64Array(count * 3).fill(Infinity);
+  const omegaSum = scratchFloat64('splat omega', count).fill(0);
+  const energy = scratchFloat64('splat energy', count * 3).fill(0);
+  const lumMoment = scratchFloat64('splat luminance moment', count * 3).fill(0);
+  const geoMoment = scratchFloat64('splat geometric moment', count * 3).fill(0);
+  const minimum = scratchFloat64('splat minimum', count * 3).fill(Infinity);
 
   // Source rows and columns that can land on this face, with margins for the bilinear support and the
   // bright-pixel flags (which look 2 pixels around).
@@ -235,7 +236,7 @@ function splatFace(src: Float32Array, dst: Float32Array, cent: Float32Array, geo
   // The floor of the footprint fill: the per-channel minimum over the texel and its in-face neighbours,
   // so a texel inside a sun whose sub-cells over- or undershoot its footprint trades sky-level radiance
   // with its neighbour, never sun-level (the sun's own energy stays exactly where its sub-cells landed).
-  const floor = new Float64Array(count * 3);
+  const floor = scratchFloat64('splat floor', count * 3);
   for (let local = 0; local < count; local++) {
     const rem = begin + local - face * n * n;
     const ty = (rem / n) | 0;

@@ -7,7 +7,7 @@
 
 import { WorkerPool } from '@lightkiln/pool';
 import type { StageContext } from '../stages/context.js';
-import { irradianceCube } from '../stages/irradiance.js';
+import { irradianceCube, projectSh9 } from '../stages/irradiance.js';
 import { buildPyramid } from '../stages/pyramid.js';
 import { prefilterLevels } from '../stages/specular.js';
 
@@ -32,6 +32,7 @@ export async function warmUp(): Promise<void> {
   const pyramid = await buildPyramid(source, 8, 10, ctx);
   const requests = [1, 2, 3].map((level) => ({ level, faceSize: 8 >> level, perceptualRoughness: level / 3, requestedSamples: 16 }));
   await prefilterLevels(pyramid, requests, { filtered: true, lodBias: 0.5, clampLuminance: 0, rotateSequence: false, quality: 'quadrature' }, ctx);
-  await irradianceCube(pyramid, 4, 'convolution', { radiance: new Float64Array(27), irradiance: new Float64Array(27) }, ctx);
+  await projectSh9(pyramid, 0, 'none', 3, ctx);
+  await irradianceCube(pyramid, 4, 'convolution', () => Promise.resolve({ radiance: new Float64Array(27), irradiance: new Float64Array(27) }), ctx);
   await pool.close();
 }

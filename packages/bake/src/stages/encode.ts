@@ -1,6 +1,6 @@
 /** Stage 7: GPU files (KTX 2.0) and inspection views of the baked data. */
 
-import { encodeKtx2, type FloatImage, type Ktx2Format } from '@lightkiln/codecs';
+import { encodeKtx2, packRgbTexels, type FloatImage, type Ktx2Format } from '@lightkiln/codecs';
 import type { CubeFormat } from '../recipe.js';
 import type { DfgTable } from './dfg.js';
 
@@ -18,41 +18,19 @@ export const FORMAT_MAX: Readonly<Record<CubeFormat, readonly [number, number, n
 };
 
 /**
- * RGB texels to the channel count of a format (alpha = 1 for the RGBA formats), each channel clamped to
- * the format's largest finite value so no artifact holds Inf; returns the number of texels clamped.
+ * A cube (all levels) as KTX 2.0, and how many texels were clamped to the format's range (each level is
+ * packed from its RGB floats straight into the format: alpha 1, channels clamped to FORMAT_MAX so no
+ * artifact holds Inf).
  */
-function toFormatChannels(rgb: Float32Array, format: CubeFormat): { data: Float32Array; clamped: number } {
-  const max = FORMAT_MAX[format];
-  const channels = format === 'rgb9e5' || format === 'b10g11r11' ? 3 : 4;
-  const n = rgb.length / 3;
-  const out = new Float32Array(n * channels);
-  let clamped = 0;
-  for (let t = 0; t < n; t++) {
-    let over = false;
-    for (let c = 0; c < 3; c++) {
-      const v = rgb[t * 3 + c]!;
-      if (v > max[c]!) { out[t * channels + c] = max[c]!; over = true; } else out[t * channels + c] = v;
-    }
-    if (channels === 4) out[t * 4 + 3] = 1;
-    if (over) clamped++;
-  }
-  return { data: out, clamped };
-}
-
-/** A cube (all levels) as KTX 2.0, and how many texels were clamped to the format's range. */
 export function encodeCubeKtx2(levels: readonly Float32Array[], size: number, format: CubeFormat, supercompression: 'none' | 'zlib' | 'zstd', keyValues: Record<string, string>): { bytes: Uint8Array; clamped: number } {
-  const converted = levels.map((l) => toFormatChannels(l, format));
-  const bytes = encodeKtx2({
-    format: format as Ktx2Format,
-    width: size,
-    height: size,
-    faceCount: 6,
-    levels: converted.map((c) => c.data),
-    supercompression,
-    writer: WRITER,
-    keyValues,
+  let clamped = 0;
+  const packed = levels.map((l) => {
+    const p = packRgbTexels(format as Ktx2Format, l, FORMAT_MAX[format]);
+    clamped += p.clamped;
+    return p.bytes;
   });
-  return { bytes, clamped: converted.reduce((n, c) => n + c.clamped, 0) };
+  const bytes = encodeKtx2({ format: format as Ktx2Format, width: size, height: size, faceCount: 6, levels: packed, supercompression, writer: WRITER, keyValues });
+  return { bytes, clamped };
 }
 
 export function encodeDfgKtx2(table: DfgTable, supercompression: 'none' | 'zlib' | 'zstd', samples: number): Uint8Array {

@@ -5,13 +5,14 @@
  */
 
 import {
-  accumulateSh9, applySh9BandWeights, convolveSh9Lambert, cubeFaceSolidAngleTable, cubeTexelCenterDirection, evalSh9Rgb, sh9WindowWeights,
+  applySh9BandWeights, convolveSh9Lambert, cubeTexelCenterDirection, evalSh9Rgb, sh9WindowWeights,
   type Sh9WindowKind,
 } from '@lightkiln/math';
 import { sharedFloat32, sharedFloat64 } from '@lightkiln/pool';
 import type { ConvolveParams } from '../kernels/convolve.js';
 import { jobOptions, kernel, type StageContext } from './context.js';
-import { levelView, sourceDirections, type Pyramid } from './pyramid.js';
+import { nodeGeometryOnPool } from './node-geometry.js';
+import { sourceDirections, type Pyramid } from './pyramid.js';
 
 export interface ShResult {
   /** Radiance coefficients L_lm, 27 numbers (9 x RGB), window applied. */
@@ -20,22 +21,23 @@ export interface ShResult {
   readonly irradiance: Float64Array;
 }
 
-/** Projects a cube level onto SH9: L_lm = sum_texels L Y_lm dOmega (exact texel solid angles). */
-export function projectSh9(pyramid: Pyramid, level: number, window: Sh9WindowKind, windowWidth: number): ShResult {
+/**
+ * Projects a cube level onto SH9: L_lm = sum_texels L Y_lm dOmega (exact texel solid angles), as per-row
+ * partial sums on the pool (kernels/sh-project.ts) added here in row order.
+ */
+export async function projectSh9(pyramid: Pyramid, level: number, window: Sh9WindowKind, windowWidth: number, ctx: StageContext): Promise<ShResult> {
   const n = pyramid.sizes[level]!;
-  const data = levelView(pyramid, level);
-  const solid = cubeFaceSolidAngleTable(n);
+  const rows = sharedFloat64(6 * n * 27);
+  const geometry = await nodeGeometryOnPool(pyramid.sizes[0]!, ctx);
+  await ctx.pool.run({
+    kernel: kernel('projectSh9Rows'),
+    buffers: { pyramid: pyramid.data, geometry: geometry.data, dst: rows },
+    segments: [{ begin: 0, end: 6 * n, costPerItem: 20 * n, label: 'sh9 projection' }],
+    params: { size: n, offset: pyramid.offsets[level]!, geometryOffset: geometry.offsets[level]! },
+    ...jobOptions(ctx, 'irradiance'),
+  });
   const radiance = new Float64Array(27);
-  const d = new Float64Array(3);
-  for (let f = 0; f < 6; f++) {
-    for (let y = 0; y < n; y++) {
-      for (let x = 0; x < n; x++) {
-        const t = ((f * n + y) * n + x) * 3;
-        cubeTexelCenterDirection(d, 0, f, x, y, n);
-        accumulateSh9(radiance, d[0]!, d[1]!, d[2]!, data[t]!, data[t + 1]!, data[t + 2]!, solid[y * n + x]!);
-      }
-    }
-  }
+  for (let row = 0; row < 6 * n; row++) for (let k = 0; k < 27; k++) radiance[k] = radiance[k]! + rows[row * 27 + k]!;
   const weights = new Float64Array(3);
   sh9WindowWeights(weights, window, windowWidth);
   applySh9BandWeights(radiance, weights);
@@ -73,9 +75,11 @@ export function convolutionSource(pyramid: Pyramid, level: number): Float64Array
   return out;
 }
 
-export async function irradianceCube(pyramid: Pyramid, size: number, source: 'convolution' | 'sh9', sh: ShResult, ctx: StageContext): Promise<Float32Array> {
+/** The irradiance cube; `shResult` (called only when the cube is reconstructed from SH9) gives the projection. */
+export async function irradianceCube(pyramid: Pyramid, size: number, source: 'convolution' | 'sh9', shResult: () => Promise<ShResult>, ctx: StageContext): Promise<Float32Array> {
   const texels = 6 * size * size;
   if (source === 'sh9') {
+    const sh = await shResult();
     const out = new Float32Array(texels * 3);
     const d = new Float64Array(3);
     const e = new Float64Array(3);
