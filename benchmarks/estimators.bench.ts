@@ -3,11 +3,61 @@
  * 0.5-degree sun 1e4 x brighter), the whole chain of a 128 bake on one thread: the default hierarchical
  * quadrature against filtered importance sampling at the default preset, and each one's worst-level
  * 99.9th-percentile error against the exhaustive reference of the same pyramid (the sweep's measure).
+ * Then the cost figures of the default against filtered sampling on the demo scene (examples/
+ * observatory-dusk, 2048 x 1024) at 256 on 2 threads, whole bakes (every artifact) in one process after a
+ * warm-up bake each, interleaved: the specular stage and the whole bake, medians of 3.
  */
 
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { WorkerPool } from '@lightkiln/pool';
+import { createBaker } from '@lightkiln/bake';
 import { buildPyramid, prefilterLevels, type LevelRequest, type LevelResult } from '@lightkiln/bake/kernels';
 import { record, runBench, syntheticSky } from './common.js';
+
+const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[xs.length >> 1]!;
+
+/** The demo sky as the example script writes it, read back as bytes. */
+function demoSky(width: number): Uint8Array {
+  const dir = mkdtempSync(join(tmpdir(), 'lightkiln-demo-'));
+  try {
+    const out = join(dir, 'observatory-dusk.hdr');
+    const script = fileURLToPath(new URL('../../examples/observatory-dusk/make-sky.mjs', import.meta.url));
+    const r = spawnSync(process.execPath, [script, out, String(width)], { encoding: 'utf8' });
+    if (r.status !== 0) throw new Error(`make-sky failed: ${r.stderr}`);
+    return new Uint8Array(readFileSync(out));
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+/** Default (quadrature) against filtered sampling at the default preset: whole bakes of the demo at 256, 2 threads. */
+async function demoCost(): Promise<void> {
+  const bytes = demoSky(2048);
+  const baker = createBaker({ threads: 2, cache: false });
+  const runs = { quadrature: { specular: [] as number[], whole: [] as number[] }, sampled: { specular: [] as number[], whole: [] as number[] } };
+  try {
+    for (let i = 0; i < 4; i++) {
+      for (const quality of ['quadrature', 'sampled'] as const) {
+        const t = performance.now();
+        const result = await baker.bake({ input: { bytes, name: 'observatory-dusk.hdr' }, size: 256, quality });
+        const whole = performance.now() - t;
+        if (i === 0) continue;
+        runs[quality].specular.push(result.manifest.timingsMs.specular!);
+        runs[quality].whole.push(whole);
+      }
+    }
+  } finally {
+    await baker.close();
+  }
+  const q = runs.quadrature;
+  const f = runs.sampled;
+  record('demo 256, 2 threads: specular stage, default / filtered', median(q.specular) / median(f.specular), 'x', `medians of 3: ${median(q.specular).toFixed(0)} ms vs ${median(f.specular).toFixed(0)} ms, target <= 0.5`);
+  record('demo 256, 2 threads: whole bake, default / filtered', median(q.whole) / median(f.whole), 'x', `medians of 3: ${median(q.whole).toFixed(0)} ms vs ${median(f.whole).toFixed(0)} ms, target <= 0.8`);
+}
 
 function sunnySky(width: number, height: number): Float32Array {
   const data = syntheticSky(width, height);
@@ -68,4 +118,5 @@ export async function estimatorsBench(): Promise<void> {
   record('quadrature worst p99.9 (levels 1-3, vs exhaustive)', worstP999(quadrature.slice(0, 3), reference) * 100, '%');
   record('filtered worst p99.9 (levels 1-3, vs exhaustive)', worstP999(filtered.slice(0, 3), reference) * 100, '%');
   await inline.close();
+  await demoCost();
 }
