@@ -179,17 +179,23 @@ export function exactPrefiltered(env: SunnySky, nx: number, ny: number, nz: numb
   out[0] = r / den; out[1] = g / den; out[2] = b / den;
 }
 
-/** Relative RMSE and 99.9th percentile of the relative luminance error of test against ref (RGB arrays). */
-export function errorStats(test: ArrayLike<number>, ref: ArrayLike<number>, stride = 3): { rmse: number; p999: number; max: number } {
+/**
+ * Error figures of test against ref (RGB arrays, BT.709 luminance): rmse, the RMS error over the mean of
+ * ref (dominated by the brightest texels where a sun is in view); relRms, the RMS of the per-texel
+ * relative error; p999 and max of the per-texel relative error.
+ */
+export function errorStats(test: ArrayLike<number>, ref: ArrayLike<number>, stride = 3): { rmse: number; relRms: number; p999: number; max: number } {
   const n = ref.length / 3;
-  let se = 0; let sy = 0;
+  let se = 0; let sy = 0; let sr = 0;
   const rel: number[] = [];
   for (let t = 0; t < n; t++) {
     const yr = 0.2126 * ref[t * 3]! + 0.7152 * ref[t * 3 + 1]! + 0.0722 * ref[t * 3 + 2]!;
     const yt = 0.2126 * test[t * stride]! + 0.7152 * test[t * stride + 1]! + 0.0722 * test[t * stride + 2]!;
     se += (yt - yr) ** 2; sy += yr;
-    rel.push(Math.abs(yt - yr) / yr);
+    const e = Math.abs(yt - yr) / yr;
+    sr += e * e;
+    rel.push(e);
   }
   rel.sort((x, y) => x - y);
-  return { rmse: Math.sqrt(se / n) / (sy / n), p999: rel[Math.min(n - 1, Math.floor(0.999 * n))]!, max: rel[n - 1]! };
+  return { rmse: Math.sqrt(se / n) / (sy / n), relRms: Math.sqrt(sr / n), p999: rel[Math.min(n - 1, Math.floor(0.999 * n))]!, max: rel[n - 1]! };
 }

@@ -14,7 +14,10 @@ export interface ManifestLevel {
   /** Samples per texel requested, and those with n.l > 0 actually used (source texels for reference). */
   readonly samples: number;
   readonly usedSamples: number;
-  /** Split-half estimate of the relative RMS error in BT.709 luminance (0 = exact at this level). */
+  /**
+   * Estimated RMS over texels of the relative error in BT.709 luminance (each texel's error over its own
+   * luminance; 0 = exact at this level). See the bake README for how each method estimates it.
+   */
   readonly relativeErrorEstimate: number;
 }
 

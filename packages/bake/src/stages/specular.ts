@@ -97,9 +97,10 @@ export interface LevelResult {
   /** Samples with NoL > 0 actually used per texel. */
   readonly usedSamples: number;
   /**
-   * Estimated relative RMS error in luminance: RMS over texels of each texel's standard error (see
-   * kernels/specular.ts), divided by the mean luminance of the level (0 for level 0 and for reference
-   * levels, which are exact quadratures of the level-0 cube). Conservative for low-discrepancy samples.
+   * Estimated RMS over texels of the relative luminance error (each texel's error over its own
+   * luminance). Quadrature: twice the RMS relative difference against the same tree at half the opening
+   * angle on check rows. Sampled: the RMS of each texel's standard error over its luminance (see
+   * kernels/specular.ts; conservative for low-discrepancy samples). 0 for level 0 and reference levels.
    */
   readonly relativeErrorEstimate: number;
 }
@@ -240,8 +241,9 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
     });
   }
   // The error estimate: every 32nd row of every face (at least two rows a face) again with half the
-  // opening angle (about four times the nodes, so about an eighth of the level's cost); twice the RMS
-  // difference, over the level's mean luminance.
+  // opening angle (about four times the nodes, so about an eighth of the level's cost); twice the RMS of
+  // the per-texel relative difference. Checked against the exact convolution of sunny skies in
+  // test/sunny.test.ts: 1.2-1.8 x the RMS relative error measured there on every level above 0.02%.
   const fine = sharedFloat32(texels * 3);
   const checkSegments: Segment[] = [];
   const checkParams: QuadratureParams[] = [];
@@ -273,13 +275,15 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
       if (checkParams[c]!.levelBegin !== p.levelBegin) continue;
       for (let t = checkSegments[c]!.begin; t < checkSegments[c]!.end; t++) {
         const o = t * 3;
-        const d = luminance(dst[o]!, dst[o + 1]!, dst[o + 2]!) - luminance(fine[o]!, fine[o + 1]!, fine[o + 2]!);
+        const yFine = luminance(fine[o]!, fine[o + 1]!, fine[o + 2]!);
+        if (!(yFine > 0)) continue;
+        const d = (luminance(dst[o]!, dst[o + 1]!, dst[o + 2]!) - yFine) / yFine;
         se += d * d;
         checked++;
       }
     }
     const meanY = sumY / n;
-    const estimate = meanY > 0 && checked > 0 ? (2 * Math.sqrt(se / checked)) / meanY : 0;
+    const estimate = meanY > 0 && checked > 0 ? 2 * Math.sqrt(se / checked) : 0;
     return { level: req.level, size: req.faceSize, data: dst.slice(p.dstOffset, p.dstOffset + n * 3), usedSamples: Math.round(sum / n), relativeErrorEstimate: estimate };
   });
 }
@@ -331,15 +335,16 @@ export async function prefilterLevels(pyramid: Pyramid, requests: readonly Level
     const p = segmentParams[r * 6]!;
     const n = 6 * req.faceSize * req.faceSize;
     const data = dst.slice(p.dstOffset, p.dstOffset + n * 3);
-    let sumErr2 = 0;
-    let sumY = 0;
+    let sumRel2 = 0;
+    let counted = 0;
     for (let t = 0; t < n; t++) {
-      const e = err[p.levelBegin + t]!;
-      sumErr2 += e * e;
-      sumY += luminance(data[t * 3]!, data[t * 3 + 1]!, data[t * 3 + 2]!);
+      const y = luminance(data[t * 3]!, data[t * 3 + 1]!, data[t * 3 + 2]!);
+      if (!(y > 0)) continue;
+      const e = err[p.levelBegin + t]! / y;
+      sumRel2 += e * e;
+      counted++;
     }
-    const meanY = sumY / n;
-    return { level: req.level, size: req.faceSize, data, usedSamples: p.sampleCount, relativeErrorEstimate: meanY > 0 ? Math.sqrt(sumErr2 / n) / meanY : 0 };
+    return { level: req.level, size: req.faceSize, data, usedSamples: p.sampleCount, relativeErrorEstimate: counted > 0 ? Math.sqrt(sumRel2 / counted) : 0 };
   });
 }
 
