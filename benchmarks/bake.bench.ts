@@ -7,7 +7,7 @@
  */
 
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -46,10 +46,27 @@ function cliFigures(): void {
     const bake = (threads: number, extra: string[]): string[] => [cli, 'bake', input, '--out', join(dir, `out${threads}`), '--size', '256', '--threads', String(threads), '--quiet', ...extra];
     const one: number[] = [];
     const two: number[] = [];
+    const stages: Record<number, Record<string, number[]>> = { 1: {}, 2: {} };
+    const stageTimes = (threads: number): void => {
+      const manifest = JSON.parse(readFileSync(join(dir, `out${threads}`, 'sky.probe.json'), 'utf8')) as { timingsMs: Record<string, number> };
+      for (const [stage, ms] of Object.entries(manifest.timingsMs)) (stages[threads]![stage] ??= []).push(ms);
+    };
     for (let i = 0; i < 3; i++) {
       one.push(timed(bake(1, ['--no-cache'])));
+      stageTimes(1);
       two.push(timed(bake(2, ['--no-cache'])));
+      stageTimes(2);
     }
+    // Stage times overlap (the DFG table and the irradiance run beside the specular chain), so they do
+    // not add up to the whole run.
+    console.log('\n  cold CLI bake 256, per stage (ms, medians of 3; stages overlap):');
+    console.log(`  ${'stage'.padEnd(12)} ${'1 thread'.padStart(9)} ${'2 threads'.padStart(10)} ${'speed-up'.padStart(9)}`);
+    for (const stage of Object.keys(stages[1]!)) {
+      const a = median(stages[1]![stage]!);
+      const b = median(stages[2]![stage] ?? [NaN]);
+      console.log(`  ${stage.padEnd(12)} ${a.toFixed(0).padStart(9)} ${b.toFixed(0).padStart(10)} ${(a / b).toFixed(2).padStart(8)}x`);
+    }
+    console.log(`  ${'whole run'.padEnd(12)} ${median(one).toFixed(0).padStart(9)} ${median(two).toFixed(0).padStart(10)} ${(median(one) / median(two)).toFixed(2).padStart(8)}x`);
     record('cold CLI bake 256, 2 threads vs 1', median(one) / median(two), 'x', `medians of 3: ${median(one).toFixed(0)} ms vs ${median(two).toFixed(0)} ms, target >= 1.75`);
     const cached = bake(2, ['--cache-dir', join(dir, 'cache')]);
     timed(cached);
