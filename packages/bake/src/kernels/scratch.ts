@@ -7,25 +7,26 @@
  * Each pool worker has its own (module state); the arrays live as long as the worker.
  */
 
-const float64Slots = new Map<string, Float64Array>();
-const uint8Slots = new Map<string, Uint8Array>();
+type Scratch = Float64Array | Uint8Array;
+
+const slots = new Map<string, Scratch>();
+
+/** The thread's array for `slot` (made anew when missing, too short or of another type), cut to `length`. */
+function scratch<T extends Scratch>(slot: string, length: number, type: new (n: number) => T): T {
+  let a = slots.get(slot);
+  if (!(a instanceof type) || a.length < length) {
+    a = new type(length);
+    slots.set(slot, a);
+  }
+  return (a as T).subarray(0, length) as T;
+}
 
 /** A Float64Array of exactly `length` items over this thread's array for `slot`. */
 export function scratchFloat64(slot: string, length: number): Float64Array {
-  let a = float64Slots.get(slot);
-  if (a === undefined || a.length < length) {
-    a = new Float64Array(length);
-    float64Slots.set(slot, a);
-  }
-  return a.subarray(0, length);
+  return scratch(slot, length, Float64Array);
 }
 
 /** A Uint8Array of exactly `length` items over this thread's array for `slot`. */
 export function scratchUint8(slot: string, length: number): Uint8Array {
-  let a = uint8Slots.get(slot);
-  if (a === undefined || a.length < length) {
-    a = new Uint8Array(length);
-    uint8Slots.set(slot, a);
-  }
-  return a.subarray(0, length);
+  return scratch(slot, length, Uint8Array);
 }
