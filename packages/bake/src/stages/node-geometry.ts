@@ -44,8 +44,10 @@ export function nodeGeometryLayout(size: number): { sizes: number[]; offsets: nu
 const pending = new Map<number, Promise<NodeGeometry>>();
 
 /**
- * The node table built on a pool worker (kernel buildNodeGeometry), so the calling thread is free (it
- * decodes the input meanwhile); memoised per size, shared with nodeGeometry().
+ * The node table built on the pool (kernel buildNodeGeometry in three phases: level-0 moments by rows,
+ * the coarser levels' sums, then means and radii by texels), so the calling thread is free (it decodes
+ * the input meanwhile) and the threads share the work (a 1024 table is about 0.5 s on one thread);
+ * memoised per size, shared with nodeGeometry().
  */
 export function nodeGeometryOnPool(size: number, ctx: StageContext): Promise<NodeGeometry> {
   const hit = cache.get(size);
@@ -54,22 +56,33 @@ export function nodeGeometryOnPool(size: number, ctx: StageContext): Promise<Nod
   if (p === undefined) {
     const { sizes, offsets, length } = nodeGeometryLayout(size);
     const data = sharedFloat64(length);
-    p = ctx.pool.run({ kernel: kernel('buildNodeGeometry'), buffers: { geometry: data }, segments: [{ begin: 0, end: 1, costPerItem: 1, label: 'node geometry' }], params: { size } })
-      .then(() => {
-        const geometry: NodeGeometry = { sizes, offsets, data };
-        if (!cache.has(size)) cache.set(size, geometry);
-        return cache.get(size)!;
-      })
-      .finally(() => pending.delete(size));
+    const run = (phase: NodeGeometryPhase, end: number, costPerItem: number): Promise<unknown> => ctx.pool.run({
+      kernel: kernel('buildNodeGeometry'), buffers: { geometry: data }, params: { size, phase },
+      segments: [{ begin: 0, end, costPerItem, label: `node geometry (${phase})` }],
+    });
+    p = (async () => {
+      await run('moments', size, 300 * size);
+      await run('sums', 1, 1);
+      await run('finish', length / NODE_STRIDE, 200);
+      const geometry: NodeGeometry = { sizes, offsets, data };
+      if (!cache.has(size)) cache.set(size, geometry);
+      return cache.get(size)!;
+    })().finally(() => pending.delete(size));
     pending.set(size, p);
   }
   return p;
 }
 
-/** Kernel: fills buffers.geometry with the table of face size params.size (one item, the whole table). */
-export function buildNodeGeometry(buffers: SharedBuffers, _begin: number, _end: number, params: { size: number }): void {
+/** The phases of the table: level-0 moments (items: rows), coarser levels' sums (one item), means and radii (items: texels of all levels). */
+export type NodeGeometryPhase = 'moments' | 'sums' | 'finish';
+
+/** Kernel: one phase of the table of face size params.size in buffers.geometry (see nodeGeometryOnPool). */
+export function buildNodeGeometry(buffers: SharedBuffers, begin: number, end: number, params: { size: number; phase: NodeGeometryPhase }): void {
   const { sizes, offsets } = nodeGeometryLayout(params.size);
-  fillNodeGeometry(buffers.geometry as Float64Array, params.size, sizes, offsets);
+  const data = buffers.geometry as Float64Array;
+  if (params.phase === 'moments') levelZeroMoments(data, params.size, begin, end);
+  else if (params.phase === 'sums') coarserSums(data, sizes, offsets);
+  else finishTexels(data, sizes, offsets, begin, end);
 }
 
 /** The node table of a pyramid whose level 0 has face size `size` (memoised per size). */
@@ -85,10 +98,16 @@ export function nodeGeometry(size: number): NodeGeometry {
 }
 
 function fillNodeGeometry(data: Float64Array, size: number, sizes: readonly number[], offsets: readonly number[]): void {
-  // Level 0: first moments integral (1, u, v) / r^4 du dv (d = (C + uU + vV) / r, dw = du dv / r^3).
+  levelZeroMoments(data, size, 0, size);
+  coarserSums(data, sizes, offsets);
+  finishTexels(data, sizes, offsets, 0, data.length / NODE_STRIDE);
+}
+
+/** Level-0 rows [y0, y1): first moments integral (1, u, v) / r^4 du dv (d = (C + uU + vV) / r, dw = du dv / r^3) and solid angles. */
+function levelZeroMoments(data: Float64Array, size: number, y0: number, y1: number): void {
   const n0 = size;
   const h = 1 / n0;
-  for (let y = 0; y < n0; y++) {
+  for (let y = y0; y < y1; y++) {
     for (let x = 0; x < n0; x++) {
       const uc = (2 * x + 1) * h - 1;
       const vc = (2 * y + 1) * h - 1;
@@ -113,13 +132,17 @@ function fillNodeGeometry(data: Float64Array, size: number, sizes: readonly numb
       data[o + 3] = cubeTexelSolidAngle(x, y, n0);
     }
   }
-  // Coarser levels: moments and solid angles add up over the four children.
+}
+
+/** Coarser levels: moments and solid angles add up over the four children (level by level). */
+function coarserSums(data: Float64Array, sizes: readonly number[], offsets: readonly number[]): void {
   for (let k = 1; k < sizes.length; k++) {
     const n = sizes[k]!;
     const c = n * 2;
     for (let y = 0; y < n; y++) {
       for (let x = 0; x < n; x++) {
         const o = offsets[k]! + (y * n + x) * NODE_STRIDE;
+        for (let q = 0; q < 3; q++) data[o + q] = 0;
         for (let dy = 0; dy < 2; dy++) {
           for (let dx = 0; dx < 2; dx++) {
             const oc = offsets[k - 1]! + ((2 * y + dy) * c + 2 * x + dx) * NODE_STRIDE;
@@ -130,35 +153,39 @@ function fillNodeGeometry(data: Float64Array, size: number, sizes: readonly numb
       }
     }
   }
-  // Moments -> means; radius = the largest angle from the mean direction to a texel corner.
-  for (let k = 0; k < sizes.length; k++) {
+}
+
+/** Texels [t0, t1) of the concatenated levels: moments -> means; radius = the largest angle from the mean direction to a texel corner. */
+function finishTexels(data: Float64Array, sizes: readonly number[], offsets: readonly number[], t0: number, t1: number): void {
+  let k = 0;
+  for (let t = t0; t < t1; t++) {
+    while (k + 1 < sizes.length && t * NODE_STRIDE >= offsets[k + 1]!) k++;
     const n = sizes[k]!;
-    for (let y = 0; y < n; y++) {
-      for (let x = 0; x < n; x++) {
-        const o = offsets[k]! + (y * n + x) * NODE_STRIDE;
-        const omega = data[o + 3]!;
-        const mc = data[o]! / omega;
-        const mu = data[o + 1]! / omega;
-        const mv = data[o + 2]! / omega;
-        const len = Math.sqrt(mc * mc + mu * mu + mv * mv);
-        let minCos = 1;
-        for (let cy = 0; cy < 2; cy++) {
-          for (let cx = 0; cx < 2; cx++) {
-            const u = (2 * (x + cx)) / n - 1;
-            const v = (2 * (y + cy)) / n - 1;
-            const cos = (mc + u * mu + v * mv) / (len * Math.sqrt(1 + u * u + v * v));
-            if (cos < minCos) minCos = cos;
-          }
-        }
-        const rho = Math.acos(Math.max(-1, Math.min(1, minCos)));
-        data[o] = mc;
-        data[o + 1] = mu;
-        data[o + 2] = mv;
-        data[o + 4] = Math.cos(rho);
-        data[o + 5] = Math.sin(rho);
-        data[o + 6] = rho;
-        data[o + 7] = len;
+    const rem = t - offsets[k]! / NODE_STRIDE;
+    const y = (rem / n) | 0;
+    const x = rem - y * n;
+    const o = t * NODE_STRIDE;
+    const omega = data[o + 3]!;
+    const mc = data[o]! / omega;
+    const mu = data[o + 1]! / omega;
+    const mv = data[o + 2]! / omega;
+    const len = Math.sqrt(mc * mc + mu * mu + mv * mv);
+    let minCos = 1;
+    for (let cy = 0; cy < 2; cy++) {
+      for (let cx = 0; cx < 2; cx++) {
+        const u = (2 * (x + cx)) / n - 1;
+        const v = (2 * (y + cy)) / n - 1;
+        const cos = (mc + u * mu + v * mv) / (len * Math.sqrt(1 + u * u + v * v));
+        if (cos < minCos) minCos = cos;
       }
     }
+    const rho = Math.acos(Math.max(-1, Math.min(1, minCos)));
+    data[o] = mc;
+    data[o + 1] = mu;
+    data[o + 2] = mv;
+    data[o + 4] = Math.cos(rho);
+    data[o + 5] = Math.sin(rho);
+    data[o + 6] = rho;
+    data[o + 7] = len;
   }
 }
