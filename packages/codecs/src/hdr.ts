@@ -115,26 +115,23 @@ export function decodeHdr(bytes: Uint8Array, options: HdrDecodeOptions = {}): De
   // 2^(e - 136) / exposure for every exponent byte (e = 0 is black).
   const scale = new Float64Array(256);
   for (let e = 1; e < 256; e++) scale[e] = Math.pow(2, e - 136) / header.exposure;
+  // Where each scanline goes: its first pixel's float offset and the step between its pixels.
+  // "-Y" means rows stored top first, "+X" left first; for "+X W +Y H" and friends the scanlines are
+  // columns, and "-Y" inner runs top to bottom.
+  const outerForward = m[1] === (yMajor ? '-' : '+');
+  const innerForward = m[4] === (yMajor ? '+' : '-');
+  const innerStep = yMajor ? 3 : 3 * width;
   for (let outer = 0; outer < outerCount; outer++) {
     pos = readScanline(bytes, pos, scan, innerCount, file, outer);
-    for (let inner = 0; inner < innerCount; inner++) {
-      // Map (outer, inner) to image (x, y): "-Y" means rows stored top first, "+X" left first.
-      const oIdx = m[1] === '-' ? outer : outerCount - 1 - outer;
-      const iIdx = m[4] === '+' ? inner : innerCount - 1 - inner;
-      let x: number;
-      let y: number;
-      if (yMajor) {
-        y = oIdx; x = iIdx;
-      } else {
-        // "+X W +Y H" and friends: columns are the scanlines; -Y inner runs top to bottom.
-        x = m[1] === '+' ? outer : outerCount - 1 - outer;
-        y = m[4] === '-' ? inner : innerCount - 1 - inner;
-      }
-      const f = scale[scan[inner * 4 + 3]!]!;
-      const o = (y * width + x) * 3;
-      data[o] = scan[inner * 4]! * f;
-      data[o + 1] = scan[inner * 4 + 1]! * f;
-      data[o + 2] = scan[inner * 4 + 2]! * f;
+    const o0 = outerForward ? outer : outerCount - 1 - outer;
+    const first = yMajor ? o0 * width * 3 : o0 * 3;
+    let o = innerForward ? first : first + (innerCount - 1) * innerStep;
+    const step = innerForward ? innerStep : -innerStep;
+    for (let i4 = 0, end = innerCount * 4; i4 < end; i4 += 4, o += step) {
+      const f = scale[scan[i4 + 3]!]!;
+      data[o] = scan[i4]! * f;
+      data[o + 1] = scan[i4 + 1]! * f;
+      data[o + 2] = scan[i4 + 2]! * f;
     }
   }
   return decodedImage(width, height, 3, data, 'hdr');
