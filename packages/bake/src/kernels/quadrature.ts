@@ -121,7 +121,8 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
   const shareScale = params.shareScale;
   const invExact = 1 / params.lobeIntegral;
   const centre = new Float64Array(3);
-  const stack = new Int32Array(4 * (8 + 4 * params.levels));
+  // Stack entries, one int each: level (bits 27-30), face (24-26), x (12-23), y (0-11); faces up to 4096.
+  const stack = new Int32Array(8 + 4 * params.levels);
   for (let item = begin; item < end; item++) {
     const local = item - params.levelBegin;
     texelCentreDirection(centre, local, size);
@@ -144,19 +145,17 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
     const brightY = params.brightRatio * yMean;
     let den = 0;
     let accepted = 0;
-    // Stack entries: level, face, x, y.
+    // The six 1 x 1 faces.
     let sp = 0;
     for (let f = 5; f >= 0; f--) {
-      stack[sp++] = top;
-      stack[sp++] = f;
-      stack[sp++] = 0;
-      stack[sp++] = 0;
+      stack[sp++] = (top << 27) | (f << 24);
     }
     while (sp > 0) {
-      const ty = stack[--sp]!;
-      const tx = stack[--sp]!;
-      const face = stack[--sp]!;
-      const k = stack[--sp]!;
+      const entry = stack[--sp]!;
+      const ty = entry & 4095;
+      const tx = (entry >>> 12) & 4095;
+      const face = (entry >>> 24) & 7;
+      const k = entry >>> 27;
       const tk = k * LEVEL_TABLE_STRIDE;
       const nk = table[tk]!;
       const rem = ty * nk + tx;
@@ -195,10 +194,11 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
             const k1 = k - 1;
             const x2 = 2 * tx;
             const y2 = 2 * ty;
-            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2;
-            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2;
-            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2; stack[sp++] = y2 + 1;
-            stack[sp++] = k1; stack[sp++] = face; stack[sp++] = x2 + 1; stack[sp++] = y2 + 1;
+            const child = (k1 << 27) | (face << 24) | (x2 << 12) | y2;
+            stack[sp++] = child;
+            stack[sp++] = child + 4096;
+            stack[sp++] = child + 1;
+            stack[sp++] = child + 4097;
             continue;
           }
         }
