@@ -12,6 +12,7 @@ import { describe, expect, it } from 'vitest';
 import { sharedFloat32, toShared } from '@lightkiln/pool';
 import { cubeTexelSolidAngle, directionToCubeFace } from '@lightkiln/math';
 import { Landing, nodeGeometry, splatEquirect, splatSubcells, type SplatParams } from '@lightkiln/bake/kernels';
+import { RETAINED_BYTES, scratchFloat64 } from '../src/kernels/scratch.js';
 
 const W = 256;
 const H = 128;
@@ -134,5 +135,21 @@ describe('the splat\'s inlined face selection', () => {
       const landed = faces.flatMap((f, i) => [...f.omegaSum].flatMap((w, t) => (w > 0 ? [[i, t]] : [])));
       expect(landed, `direction ${x}, ${y}, ${z}`).toEqual([[face, ty * n + tx]]);
     }
+  });
+});
+
+describe('kernel scratch arrays (kernels/scratch.ts)', () => {
+  it('reuses a slot within the retained budget and hands out fresh arrays beyond it', () => {
+    const small = scratchFloat64('test small', 1000);
+    expect(scratchFloat64('test small', 500).buffer).toBe(small.buffer);
+    expect(scratchFloat64('test small', 500).length).toBe(500);
+    // Growing past the budget: a fresh array each time, and the slot no longer pins the old one.
+    const items = RETAINED_BYTES / 8 + 1;
+    const a = scratchFloat64('test big', items);
+    const b = scratchFloat64('test big', items);
+    expect(a.length).toBe(items);
+    expect(a.buffer).not.toBe(b.buffer);
+    const again = scratchFloat64('test small', 1000);
+    expect(again.buffer).toBe(small.buffer);
   });
 });
