@@ -7,6 +7,7 @@
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { abortedError, invalidJobError, PoolError, poolClosedError, tileFailedError, type TileDescription } from './errors.js';
 import { builtModuleUrl, loadKernel, type KernelRef } from './kernel.js';
@@ -127,10 +128,11 @@ export class WorkerPool {
       if (!existsSync(fileURLToPath(filename))) {
         throw new PoolError('KERNEL_NOT_FOUND', `the pool's built worker ${fileURLToPath(filename)} is missing; run the build (pnpm run build) first`);
       }
+      const workerArgv = workerExecArgv(process.execArgv);
       this.#piscina = new Piscina({
         filename,
         // Workers load built files: drop any "--conditions" (e.g. a test runner's source condition).
-        execArgv: workerExecArgv(process.execArgv),
+        ...(workerArgv === undefined ? {} : { execArgv: workerArgv }),
         minThreads: this.threads,
         maxThreads: this.threads,
         concurrentTasksPerWorker: 1,
@@ -320,8 +322,38 @@ export class WorkerPool {
   }
 }
 
-/** The parent's execArgv without --conditions / -C flags, which would point workers at TypeScript sources. */
-export function workerExecArgv(execArgv: readonly string[]): string[] {
+const isConditions = (arg: string): boolean => arg === '--conditions' || arg === '-C' || arg.startsWith('--conditions=') || arg.startsWith('-C=');
+
+const workerAccepts = new Map<string, boolean>();
+
+/**
+ * Whether a worker thread takes `flag` in its execArgv. Node rejects V8 and process-wide options there
+ * (--max-old-space-size, --stack-size, --jitless: they already apply to every thread); it says so by
+ * throwing from the constructor, before a thread starts. Asked once per flag.
+ */
+function acceptedByWorkers(flag: string): boolean {
+  // Module hooks are worker options (and a probe would run them): no need to ask.
+  if (/^--(import|require|loader|experimental-loader)=/.test(flag) || /^-r=/.test(flag)) return true;
+  let accepted = workerAccepts.get(flag);
+  if (accepted === undefined) {
+    try {
+      void new Worker('', { eval: true, execArgv: [flag], stdout: true, stderr: true }).terminate();
+      accepted = true;
+    } catch {
+      accepted = false;
+    }
+    workerAccepts.set(flag, accepted);
+  }
+  return accepted;
+}
+
+/**
+ * The execArgv for pool workers: undefined (inherit the parent's, Node's default) unless it holds
+ * --conditions / -C, which would point workers at TypeScript sources (a test runner's source condition);
+ * then the parent's flags without those, and without the ones a worker refuses.
+ */
+export function workerExecArgv(execArgv: readonly string[]): string[] | undefined {
+  if (!execArgv.some(isConditions)) return undefined;
   const out: string[] = [];
   for (let i = 0; i < execArgv.length; i++) {
     const arg = execArgv[i]!;
@@ -329,8 +361,12 @@ export function workerExecArgv(execArgv: readonly string[]): string[] {
       i++;
       continue;
     }
-    if (arg.startsWith('--conditions=') || arg.startsWith('-C=')) continue;
-    out.push(arg);
+    if (isConditions(arg)) continue;
+    // A flag's separate value (e.g. "--import x") travels with it.
+    const value = execArgv[i + 1];
+    const paired = value !== undefined && !value.startsWith('-') && !arg.includes('=');
+    if (acceptedByWorkers(paired ? `${arg}=${value}` : arg)) out.push(arg, ...(paired ? [value] : []));
+    if (paired) i++;
   }
   return out;
 }

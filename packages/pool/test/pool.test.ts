@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { PoolError, WorkerPool, getSharedPool, closeSharedPools, planTiles, sharedFloat32, sharedInt32, type KernelRef, type JobProgress } from '@lightkiln/pool';
@@ -220,3 +221,25 @@ describe('concurrency', () => {
     await p.close();
   });
 });
+
+describe('node flags of the parent process', () => {
+  // Node refuses V8 and process-wide options in a worker's execArgv (ERR_WORKER_INVALID_EXEC_ARGV); a
+  // pool started under `node --max-old-space-size=...` (common practice for big bakes) must still run.
+  const script = `
+    const { WorkerPool, sharedFloat32 } = await import(${JSON.stringify(new URL('../dist/index.js', import.meta.url).href)});
+    const pool = new WorkerPool({ threads: 2 });
+    const src = sharedFloat32(64).fill(1);
+    const dst = sharedFloat32(64);
+    await pool.run({ kernel: { moduleUrl: ${JSON.stringify(moduleUrl)}, name: 'mix' }, buffers: { src, dst }, params: { work: 1 }, segments: [{ begin: 0, end: 64, costPerItem: 1, rowLength: 8 }], targetTileCost: 8 });
+    await pool.close();
+    console.log(dst.every((v) => v !== 0) ? 'ran' : 'empty');
+  `;
+  for (const flags of [['--max-old-space-size=2048', '--stack-size=900'], ['--conditions=source', '--max-old-space-size=2048', '--no-warnings', '--enable-source-maps']]) {
+    it(`runs jobs under ${flags.join(' ')}`, () => {
+      const r = spawnSync(process.execPath, [...flags, '--input-type=module', '-e', script], { encoding: 'utf8', timeout: 60_000 });
+      expect(r.stderr).toBe('');
+      expect(r.stdout.trim()).toBe('ran');
+    });
+  }
+});
+
