@@ -2,7 +2,7 @@
  * The default specular chain on sunny skies, against the exact convolution of the analytic environment
  * (test/helpers/sunny-sky.ts: composite Gauss-Legendre over the analytic sky and the sun disc, sharing
  * no code with the bake). Suns 0.25 to 1 degree wide, 10^3 to 10^5 times the sky, on a face, on a face
- * edge, at a cube corner and near the horizon. Figures over a deterministic subset of texel centres
+ * edge, at a cube corner, near the horizon, at the zenith and on the panorama's seam. Figures over a deterministic subset of texel centres
  * (every texel of the small levels), BT.709 luminance: the RMS of the per-texel relative error, its
  * 99.9th percentile, and the RMSE over the level's mean. The manifest's per-level error estimate is
  * checked against the first: never below it, at most 3 x above it (with 0.02% of absolute slack, the
@@ -98,6 +98,9 @@ const cases: { name: string; direction: [number, number, number]; diameterDeg: n
   { name: 'on the +X/+Z edge, 0.5 degrees, 1e4', direction: norm([1, 0.3, 1]), diameterDeg: 0.5, ratio: 1e4, size: 128, width: 4096 },
   { name: 'at the (1, 1, 1) corner, 1 degree, 1e5', direction: norm([1, 1, 1]), diameterDeg: 1, ratio: 1e5, size: 64, width: 4096 },
   { name: 'near the horizon, 0.25 degrees, 1e3', direction: norm([-0.6, 0.03, 0.8]), diameterDeg: 0.25, ratio: 1e3, size: 64, width: 2048 },
+  // Where the panorama is stretched most (its top row is one point) and where its two ends meet.
+  { name: 'at the zenith (the panorama\'s pole, the +Y face centre), 0.5 degrees, 2e4', direction: [0, 1, 0], diameterDeg: 0.5, ratio: 2e4, size: 128, width: 4096 },
+  { name: 'on the panorama\'s seam near the horizon (+Z), 0.5 degrees, 2e4', direction: norm([0, 0.05, 1]), diameterDeg: 0.5, ratio: 2e4, size: 128, width: 4096 },
   // A 1-degree 3e4 x sun from a 2048-wide image: its peak texels at level 1 are 1300 x the level's mean,
   // so a 0.1-0.25% error there (per texel) is 3.5% RMSE over the mean on all texels, and about half of
   // that is the image's own (a brute-force convolution of its pixels differs from the exact disc by
