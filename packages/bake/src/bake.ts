@@ -22,7 +22,7 @@ import { BakeRun, cachedDfg, cachedFile } from './run.js';
 import { guardedContext, type BakeProgress } from './stages/context.js';
 import { encodeDfgKtx2 } from './stages/encode.js';
 import { readInputFiles, type InputFile } from './stages/source.js';
-import { artifactRows, keyLabels, planFromTables, type ArtifactRow, type BuiltFile, type BuiltFiles, type LutMeta } from './tables.js';
+import { artifactRows, keyLabels, lutRow, planFromTables, type ArtifactRow, type BuiltFile, type BuiltFiles, type LutMeta } from './tables.js';
 import { checkOutputFolder, writeAtomically } from './write.js';
 
 export type { ArtifactKind, BakedArtifact, BakePlan, BakeResult, BakerOptions, BakeRunOptions, LutOptions, PlanItem } from './api.js';
@@ -81,10 +81,7 @@ export class Baker {
   #prepare(raw: Recipe): { recipe: ResolvedRecipe; inputs: InputFile[]; inputHashes: string[]; keys: Keys } {
     if (this.#closed) throw new LightkilnError('INVALID_OPTION', 'the baker is closed');
     const recipe = resolveRecipe(raw);
-    const inputs = readInputFiles(recipe, raw);
-    const inputHashes = inputs.map((i) => sha256Hex(i.bytes));
-    const inputHash = inputs.length === 1 ? inputHashes[0]! : sha256Hex(new TextEncoder().encode(inputHashes.join(',')));
-    return { recipe, inputs, inputHashes, keys: computeKeys(recipe, inputHash) };
+    return { recipe, ...readAndHash(recipe, raw) };
   }
 
   /** Reports what a bake of this recipe would read from the cache and what it would compute. */
@@ -102,22 +99,42 @@ export class Baker {
   async bake(raw: Recipe, options: BakeRunOptions = {}): Promise<BakeResult> {
     const started = performance.now();
     let progressFailure = (): unknown => undefined;
+    // Work started before the input was read; stopped (and waited for) when the bake fails before it ends.
+    const early = new AbortController();
+    let earlyWork: Promise<unknown> | null = null;
     try {
       if (typeof options !== 'object' || options === null) throw invalidOption('bake options', 'must be an object', options);
       if (options.signal?.aborted) throw aborted(options.signal.reason);
-      const { recipe, inputs, inputHashes, keys } = this.#prepare(raw);
+      if (this.#closed) throw new LightkilnError('INVALID_OPTION', 'the baker is closed');
+      const recipe = resolveRecipe(raw);
       const outDir = options.outDir;
       if (outDir !== undefined && (typeof outDir !== 'string' || outDir === '')) throw invalidOption('outDir', 'must be a non-empty folder path', outDir);
       if (outDir !== undefined) checkOutputFolder(outDir, recipe.name);
       const cache = new EntryCache(this.#store);
       const guarded = guardedContext(this.#pool, options, this.#options.targetTileCost);
       progressFailure = guarded.failure;
-      const ctx = guarded.ctx;
-      const run = new BakeRun(recipe, inputs, keys, cache, ctx);
+      const ctx = { ...guarded.ctx, signal: guarded.ctx.signal === undefined ? early.signal : AbortSignal.any([guarded.ctx.signal, early.signal]) };
+      const run = new BakeRun(recipe, cache, ctx);
       const emit = guarded.emit;
       run.emit = emit;
-      const labels = keyLabels(recipe, keys);
-      cache.onAccess = (key, hit) => emit({ type: 'cache', entry: labels.get(key) ?? key, hit });
+      // Cache events name their entry; the names are known once the input is hashed (earlier ones wait).
+      let labels: Map<string, string> | null = null;
+      const waiting: [string, boolean][] = [];
+      cache.onAccess = (key, hit) => {
+        if (labels === null) waiting.push([key, hit]);
+        else emit({ type: 'cache', entry: labels.get(key) ?? key, hit });
+      };
+      // The DFG table needs no input: its file starts now, so the workers have work while this thread
+      // reads, hashes and decodes (the artifact table below gets the same build from run.file).
+      if (recipe.dfg.enabled) {
+        const row = lutRow(recipe, lutKeys(recipe.dfg, recipe.output.supercompression).lutFile);
+        earlyWork = run.file(row.key, () => row.build(run, {}));
+        earlyWork.catch(() => undefined);
+      }
+      const { inputs, inputHashes, keys } = readAndHash(recipe, raw);
+      run.attach(inputs, keys);
+      labels = keyLabels(recipe, keys);
+      for (const [key, hit] of waiting.splice(0)) cache.onAccess(key, hit);
       const built = await this.#buildArtifacts(run, recipe, keys);
       if (options.signal?.aborted) throw aborted(options.signal.reason);
       const artifacts: BakedArtifact[] = built.files.map(({ row, file }) => ({
@@ -144,6 +161,10 @@ export class Baker {
       if (this.#store !== null && this.#options.cacheMaxBytes !== undefined) await pruneStore(this.#store, this.#options.cacheMaxBytes);
       return { artifacts, manifest, cache: { ...cache.stats } };
     } catch (error) {
+      if (earlyWork !== null) {
+        early.abort();
+        await earlyWork.catch(() => undefined);
+      }
       throw toLightkilnError(progressFailure() ?? error);
     }
   }
@@ -216,3 +237,12 @@ export function createBaker(options: BakerOptions = {}): Baker {
 }
 
 export { MemoryStore, FolderStore, STAGE_VERSIONS };
+
+/** The recipe's input files, their SHA-256 and the bake's cache keys. */
+function readAndHash(recipe: ResolvedRecipe, raw: Recipe): { inputs: InputFile[]; inputHashes: string[]; keys: Keys } {
+  const inputs = readInputFiles(recipe, raw);
+  const inputHashes = inputs.map((i) => sha256Hex(i.bytes));
+  const inputHash = inputs.length === 1 ? inputHashes[0]! : sha256Hex(new TextEncoder().encode(inputHashes.join(',')));
+  return { inputs, inputHashes, keys: computeKeys(recipe, inputHash) };
+}
+

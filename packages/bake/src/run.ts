@@ -5,7 +5,7 @@ import { toShared } from '@lightkiln/pool';
 import type { EntryCache } from './cache/entry.js';
 import { aborted, LightkilnError } from './errors.js';
 import type { BakeEvent } from './events.js';
-import type { Keys } from './keys.js';
+import { lutKeys, type Keys } from './keys.js';
 import { levelDescriptors, pyramidBaseSize, type ResolvedRecipe } from './recipe.js';
 import { warmPool, type StageContext } from './stages/context.js';
 import { bakeDfgTable, type DfgTable } from './stages/dfg.js';
@@ -38,7 +38,33 @@ export class BakeRun {
   #sh: Promise<ShResult> | null = null;
   #irr: Promise<Float32Array> | null = null;
 
-  constructor(readonly recipe: ResolvedRecipe, readonly inputs: readonly InputFile[], readonly keys: Keys, readonly cache: EntryCache, readonly ctx: StageContext) {}
+  #inputs: readonly InputFile[] | null = null;
+  #keys: Keys | null = null;
+  readonly #lut: { dfg: string; lutFile: string };
+  readonly #files = new Map<string, Promise<{ bytes: Uint8Array; meta: unknown; fromCache: boolean }>>();
+
+  /**
+   * A run starts before its input is read (attach() gives it the files and keys): what needs no input,
+   * the DFG table, can start first and keep the workers busy while this thread reads and decodes.
+   */
+  constructor(readonly recipe: ResolvedRecipe, readonly cache: EntryCache, readonly ctx: StageContext) {
+    this.#lut = lutKeys(recipe.dfg, recipe.output.supercompression);
+  }
+
+  attach(inputs: readonly InputFile[], keys: Keys): void {
+    this.#inputs = inputs;
+    this.#keys = keys;
+  }
+
+  get inputs(): readonly InputFile[] {
+    if (this.#inputs === null) throw new LightkilnError('BAKE_FAILED', 'internal: the input was used before it was read');
+    return this.#inputs;
+  }
+
+  get keys(): Keys {
+    if (this.#keys === null) throw new LightkilnError('BAKE_FAILED', 'internal: a cache key was used before the input was hashed');
+    return this.#keys;
+  }
 
   #check(): void {
     if (this.ctx.signal?.aborted) throw aborted(this.ctx.signal.reason);
@@ -168,12 +194,22 @@ export class BakeRun {
   }
 
   dfg(): Promise<DfgTable> {
-    return cachedDfg(this.cache, this.keys.dfg, this.recipe.dfg, this.ctx, (fn) => this.#timed('dfg', fn));
+    // The table is often a bake's first pool job (it starts before the input is read): the workers'
+    // kernel warm-up goes ahead of it, as it does ahead of decoding.
+    return cachedDfg(this.cache, this.#lut.dfg, this.recipe.dfg, this.ctx, (fn) => {
+      warmPool(this.ctx);
+      return this.#timed('dfg', fn);
+    });
   }
 
-  /** A finished file from the cache, or built and stored; `meta` carries manifest fragments. */
+  /** A finished file from the cache, or built and stored (once per key and run); `meta` carries manifest fragments. */
   file<M>(key: string, build: () => Promise<{ bytes: Uint8Array; meta: M }>): Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }> {
-    return cachedFile(this.cache, key, build, () => this.#check());
+    let file = this.#files.get(key);
+    if (file === undefined) {
+      file = cachedFile(this.cache, key, build, () => this.#check());
+      this.#files.set(key, file);
+    }
+    return file as Promise<{ bytes: Uint8Array; meta: M; fromCache: boolean }>;
   }
 }
 

@@ -105,17 +105,7 @@ export function artifactRows(r: ResolvedRecipe, keys: Keys): ArtifactRow[] {
       },
     },
   ];
-  if (r.dfg.enabled) {
-    rows.push({
-      kind: 'lut', name: `${r.name}.dfg.ktx2`, key: keys.lutFile, label: 'lut file', phase: 1, stages: ['dfg'],
-      format: (meta) => ((meta as LutMeta).channels.length === 2 ? 'ktx2/rg16f' : 'ktx2/rgba16f'),
-      build: async (run) => {
-        const table = await run.dfg();
-        const meta: LutMeta = { channels: [...table.channelNames] };
-        return { bytes: await encodeTimed(run, () => encodeDfgKtx2(table, r.output.supercompression, r.dfg.samples)), meta };
-      },
-    });
-  }
+  if (r.dfg.enabled) rows.push(lutRow(r, keys.lutFile));
   for (const view of keys.views) {
     rows.push({
       kind: 'view', name: view.name, key: view.key, label: `view ${view.name}`, phase: 2, stages: view.kind === 'mirror' ? ['level 0'] : ['irradiance cube'],
@@ -143,6 +133,19 @@ export function artifactRows(r: ResolvedRecipe, keys: Keys): ArtifactRow[] {
     });
   }
   return rows;
+}
+
+/** The DFG table's file: it needs no input, so a bake may start it before the input is read. */
+export function lutRow(r: ResolvedRecipe, lutFile: string): ArtifactRow {
+  return {
+    kind: 'lut', name: `${r.name}.dfg.ktx2`, key: lutFile, label: 'lut file', phase: 1, stages: ['dfg'],
+    format: (meta) => ((meta as LutMeta).channels.length === 2 ? 'ktx2/rg16f' : 'ktx2/rgba16f'),
+    build: async (run) => {
+      const table = await run.dfg();
+      const meta: LutMeta = { channels: [...table.channelNames] };
+      return { bytes: await encodeTimed(run, () => encodeDfgKtx2(table, r.output.supercompression, r.dfg.samples)), meta };
+    },
+  };
 }
 
 /** Cache-event labels of every key of a bake. */

@@ -218,6 +218,27 @@ describe('bad recipes and bad inputs', () => {
     expect(limited.code).toBe('LIMIT_EXCEEDED');
   });
 
+  it('starts the DFG table before the input is read, and stops it when the input cannot be read', async () => {
+    const b = createBaker({ threads: 1, cache: false });
+    const events: { type: string; stage?: string; state?: string }[] = [];
+    await b.bake(recipe(), { onEvent: (e) => events.push(e) });
+    const started = (stage: string): number => events.findIndex((e) => e.type === 'stage' && e.stage === stage && e.state === 'started');
+    expect(started('dfg')).toBeGreaterThanOrEqual(0);
+    expect(started('dfg')).toBeLessThan(started('decode'));
+    // A missing input: the table's job stops at once (it computes nothing: no progress) and does not
+    // outlive the failed bake (no event after the rejection).
+    const during: { type: string }[] = [];
+    const after: unknown[] = [];
+    let failed = false;
+    const error = await b.bake({ ...recipe(), input: { path: join(tempDir(), 'nope.hdr') }, dfg: { size: 256, samples: 64 } }, { onEvent: (e) => (failed ? after : during).push(e) }).catch((e: unknown) => e) as LightkilnError;
+    failed = true;
+    expect(error.code).toBe('INVALID_INPUT');
+    expect(during.filter((e) => e.type === 'progress')).toEqual([]);
+    await new Promise((r) => setTimeout(r, 300));
+    expect(after).toEqual([]);
+    await b.close();
+  });
+
   it('refuses an output folder that is a symbolic link', async () => {
     const real = tempDir();
     const link = join(tempDir(), 'link');
