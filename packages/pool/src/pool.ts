@@ -69,6 +69,13 @@ export interface JobResult {
 
 export const DEFAULT_TARGET_TILE_COST = 200_000;
 
+/**
+ * Tiles handed to each worker at once: the one it runs and the next, already in its message queue, so a
+ * worker goes from tile to tile without waiting for this thread to answer (which it cannot while it runs
+ * JavaScript of its own: decoding, encoding, a caller's callback).
+ */
+const TILES_PER_WORKER = 2;
+
 function describeTile(tile: Tile, segments: readonly Segment[]): TileDescription {
   const seg = segments[tile.segment];
   return { segment: tile.segment, label: seg?.label ?? `segment ${tile.segment}`, begin: tile.begin, end: tile.end };
@@ -98,13 +105,13 @@ export class WorkerPool {
   #turn = 0;
 
   /**
-   * Hands tiles to piscina until `threads + 1` are in flight (one queued behind the running ones hides
-   * the message latency without letting a background tile wait ahead of a later foreground one for
-   * more than a tile). Foreground jobs first; jobs of one priority take turns, so concurrent jobs
-   * interleave.
+   * Hands tiles to piscina until TILES_PER_WORKER per thread are in flight (the next tile waits in each
+   * worker's queue, hiding the message latency, while a background tile waits ahead of a later
+   * foreground one for at most one tile per worker). Foreground jobs first; jobs of one priority take
+   * turns, so concurrent jobs interleave.
    */
   #pump(): void {
-    const limit = this.threads + 1;
+    const limit = this.threads * TILES_PER_WORKER;
     while (this.#inFlight < limit) {
       const jobs = this.#active;
       let picked: ActiveJob | undefined;
@@ -135,7 +142,7 @@ export class WorkerPool {
         ...(workerArgv === undefined ? {} : { execArgv: workerArgv }),
         minThreads: this.threads,
         maxThreads: this.threads,
-        concurrentTasksPerWorker: 1,
+        concurrentTasksPerWorker: TILES_PER_WORKER,
         idleTimeout: 60_000,
       });
       // A worker that cannot start (or dies outside a task) fails the running jobs instead of hanging them.
