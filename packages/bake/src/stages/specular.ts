@@ -233,8 +233,9 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
   const dst = sharedFloat32(texels * 3);
   const visits = sharedFloat32(texels);
   const buffers = { nodes, geometry: geometry.data, levelTable, dst, visits };
-  await ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers, segments, segmentParams, ...jobOptions(ctx, 'specular') });
+  const walk = ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers, segments, segmentParams, ...jobOptions(ctx, 'specular') });
   if (exhaustive) {
+    await walk;
     return requests.map((req, r) => {
       const p = segmentParams[r * 6]!;
       return { level: req.level, size: req.faceSize, data: dst.slice(p.dstOffset, p.dstOffset + 6 * req.faceSize * req.faceSize * 3), usedSamples: 6 * pyramid.sizes[0]! ** 2, relativeErrorEstimate: 0 };
@@ -258,7 +259,12 @@ async function quadratureLevels(pyramid: Pyramid, requests: readonly LevelReques
       }
     }
   }
-  await ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers: { ...buffers, dst: fine, visits: sharedFloat32(texels) }, segments: checkSegments, segmentParams: checkParams, ...jobOptions(ctx, 'specular') });
+  // Submitted beside the walk (it reads only the node table): the two jobs' tiles interleave, so the
+  // workers do not drain between them. Settled together, so no tile outlives a failure.
+  const check = ctx.pool.run({ kernel: kernel('prefilterQuadrature'), buffers: { ...buffers, dst: fine, visits: sharedFloat32(texels) }, segments: checkSegments, segmentParams: checkParams, ...jobOptions(ctx, 'specular') });
+  const [walkDone, checkDone] = await Promise.allSettled([walk, check]);
+  if (walkDone.status === 'rejected') throw walkDone.reason;
+  if (checkDone.status === 'rejected') throw checkDone.reason;
   return requests.map((req, r) => {
     const p = segmentParams[r * 6]!;
     const n = 6 * req.faceSize * req.faceSize;
