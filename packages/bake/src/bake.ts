@@ -14,7 +14,7 @@ import { EntryCache } from './cache/entry.js';
 import { HttpStore, LayeredStore } from './cache/remote.js';
 import { FolderStore, MemoryStore, pruneStore, type CacheStore } from './cache/store.js';
 import { aborted, invalidOption, LightkilnError, toLightkilnError } from './errors.js';
-import { sha256Hex } from './hash.js';
+import { sha256Hex, sha256HexYielding } from './hash.js';
 import { computeKeys, lutKeys, STAGE_VERSIONS, type Keys } from './keys.js';
 import { assembleManifest, type ManifestArtifact } from './manifest.js';
 import { resolveLutOptions, resolveRecipe, type Recipe, type ResolvedRecipe } from './recipe.js';
@@ -78,15 +78,15 @@ export class Baker {
     return this.#store;
   }
 
-  #prepare(raw: Recipe): { recipe: ResolvedRecipe; inputs: InputFile[]; inputHashes: string[]; keys: Keys } {
+  async #prepare(raw: Recipe): Promise<{ recipe: ResolvedRecipe; inputs: InputFile[]; inputHashes: string[]; keys: Keys }> {
     if (this.#closed) throw new LightkilnError('INVALID_OPTION', 'the baker is closed');
     const recipe = resolveRecipe(raw);
-    return { recipe, ...readAndHash(recipe, raw) };
+    return { recipe, ...(await readAndHash(recipe, raw)) };
   }
 
   /** Reports what a bake of this recipe would read from the cache and what it would compute. */
   async plan(raw: Recipe): Promise<BakePlan> {
-    const { recipe, keys } = this.#prepare(raw);
+    const { recipe, keys } = await this.#prepare(raw);
     const cache = new EntryCache(this.#store);
     const known = new Map<string, boolean>();
     const allKeys = [keys.source, keys.pyramid, ...keys.levels, keys.sh, keys.irradianceCube, keys.dfg, ...artifactRows(recipe, keys).map((a) => a.key)];
@@ -131,7 +131,7 @@ export class Baker {
         earlyWork = run.file(row.key, () => row.build(run, {}));
         earlyWork.catch(() => undefined);
       }
-      const { inputs, inputHashes, keys } = readAndHash(recipe, raw);
+      const { inputs, inputHashes, keys } = await readAndHash(recipe, raw);
       run.attach(inputs, keys);
       labels = keyLabels(recipe, keys);
       for (const [key, hit] of waiting.splice(0)) cache.onAccess(key, hit);
@@ -239,9 +239,10 @@ export function createBaker(options: BakerOptions = {}): Baker {
 export { MemoryStore, FolderStore, STAGE_VERSIONS };
 
 /** The recipe's input files, their SHA-256 and the bake's cache keys. */
-function readAndHash(recipe: ResolvedRecipe, raw: Recipe): { inputs: InputFile[]; inputHashes: string[]; keys: Keys } {
-  const inputs = readInputFiles(recipe, raw);
-  const inputHashes = inputs.map((i) => sha256Hex(i.bytes));
+async function readAndHash(recipe: ResolvedRecipe, raw: Recipe): Promise<{ inputs: InputFile[]; inputHashes: string[]; keys: Keys }> {
+  const inputs = await readInputFiles(recipe, raw);
+  const inputHashes: string[] = [];
+  for (const input of inputs) inputHashes.push(await sha256HexYielding(input.bytes));
   const inputHash = inputs.length === 1 ? inputHashes[0]! : sha256Hex(new TextEncoder().encode(inputHashes.join(',')));
   return { inputs, inputHashes, keys: computeKeys(recipe, inputHash) };
 }

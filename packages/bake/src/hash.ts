@@ -6,6 +6,21 @@ export function sha256Hex(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
 }
 
+const HASH_CHUNK = 4 << 20;
+
+/**
+ * sha256Hex of a large input in 4 MiB steps with a turn of the event loop between them (about 10 ms
+ * each), so the pool's workers get their next tiles while this thread hashes a big image.
+ */
+export async function sha256HexYielding(bytes: Uint8Array): Promise<string> {
+  const hash = createHash('sha256');
+  for (let o = 0; o < bytes.length; o += HASH_CHUNK) {
+    if (o > 0) await new Promise<void>((resolve) => setImmediate(resolve));
+    hash.update(bytes.subarray(o, Math.min(bytes.length, o + HASH_CHUNK)));
+  }
+  return hash.digest('hex');
+}
+
 /** JSON with object keys sorted, so equal values always hash equally. */
 export function stableJson(value: unknown): string {
   if (value === null || typeof value !== 'object') return JSON.stringify(value) ?? 'null';

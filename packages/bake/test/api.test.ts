@@ -239,6 +239,16 @@ describe('bad recipes and bad inputs', () => {
     await b.close();
   });
 
+  it('holds a file that reports one size and reads another to the input limit', async () => {
+    // Linux /proc files stat as 0 bytes and read as text (common practice: the limit must hold for the
+    // bytes read, not only for the size reported beforehand).
+    const proc = '/proc/self/status';
+    if (!existsSync(proc)) return;
+    const error = await baker.bake({ input: { path: proc }, limits: { maxInputBytes: 64 } }).catch((e: unknown) => e) as LightkilnError;
+    expect(error.code).toBe('LIMIT_EXCEEDED');
+    expect(error.message).toContain(proc);
+  });
+
   it('refuses an output folder that is a symbolic link', async () => {
     const real = tempDir();
     const link = join(tempDir(), 'link');

@@ -8,7 +8,8 @@ import { CodecError, decodeImage, decodeKtx2, sniffFormat, type DecodedImage } f
 import { LightkilnError, toLightkilnError } from '../errors.js';
 import type { Recipe, ResolvedRecipe } from '../recipe.js';
 import { sharedFloat32, toShared } from '@lightkiln/pool';
-import { readFileSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
+import { readFile } from 'node:fs/promises';
 
 export interface SanitizeCounts {
   nan: number;
@@ -41,13 +42,14 @@ function toRgb(image: DecodedImage): Float32Array {
 
 /** Repairs or rejects non-finite, negative and too-bright values in place. */
 /** The recipe's input files (bytes given, one path, or six faces), each checked against limits.maxInputBytes. */
-export function readInputFiles(recipe: ResolvedRecipe, raw: Recipe): InputFile[] {
+export async function readInputFiles(recipe: ResolvedRecipe, raw: Recipe): Promise<InputFile[]> {
   if (raw.input.bytes !== undefined) {
     if (raw.input.bytes.length > recipe.limits.maxInputBytes) throw new LightkilnError('LIMIT_EXCEEDED', `${recipe.input.name}: input of ${raw.input.bytes.length} bytes exceeds limits.maxInputBytes (${recipe.limits.maxInputBytes})`, { file: recipe.input.name });
     return [{ name: recipe.input.name, bytes: raw.input.bytes }];
   }
   const paths = recipe.input.faces ?? [recipe.input.path!];
-  return paths.map((path) => {
+  // Every file is checked before any is read.
+  for (const path of paths) {
     let size: number;
     try {
       const st = statSync(path);
@@ -56,15 +58,24 @@ export function readInputFiles(recipe: ResolvedRecipe, raw: Recipe): InputFile[]
     } catch (error) {
       throw toLightkilnError(error, path);
     }
-    if (size > recipe.limits.maxInputBytes) throw new LightkilnError('LIMIT_EXCEEDED', `${path}: file of ${size} bytes exceeds limits.maxInputBytes (${recipe.limits.maxInputBytes})`, { file: path });
+    if (size > recipe.limits.maxInputBytes) throw tooLarge(path, size, recipe.limits.maxInputBytes);
+  }
+  // Read off this thread (libuv's pool): the pool's workers keep getting tiles meanwhile.
+  const files: InputFile[] = [];
+  for (const path of paths) {
     try {
-      const b = readFileSync(path);
-      return { name: path, bytes: new Uint8Array(b.buffer, b.byteOffset, b.byteLength) };
+      const b = await readFile(path);
+      // A file that grew after it was checked is held to the same limit.
+      if (b.byteLength > recipe.limits.maxInputBytes) throw tooLarge(path, b.byteLength, recipe.limits.maxInputBytes);
+      files.push({ name: path, bytes: new Uint8Array(b.buffer, b.byteOffset, b.byteLength) });
     } catch (error) {
       throw toLightkilnError(error, path);
     }
-  });
+  }
+  return files;
 }
+
+const tooLarge = (path: string, size: number, limit: number): LightkilnError => new LightkilnError('LIMIT_EXCEEDED', `${path}: file of ${size} bytes exceeds limits.maxInputBytes (${limit})`, { file: path });
 
 export function sanitize(data: Float32Array, recipe: ResolvedRecipe, file: string): SanitizeCounts {
   const counts: SanitizeCounts = { nan: 0, infinite: 0, negative: 0, clampedHigh: 0 };
