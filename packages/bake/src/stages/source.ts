@@ -40,7 +40,6 @@ function toRgb(image: DecodedImage): Float32Array {
   return out;
 }
 
-/** Repairs or rejects non-finite, negative and too-bright values in place. */
 /** The recipe's input files (bytes given, one path, or six faces), each checked against limits.maxInputBytes. */
 export async function readInputFiles(recipe: ResolvedRecipe, raw: Recipe): Promise<InputFile[]> {
   if (raw.input.bytes !== undefined) {
@@ -77,6 +76,7 @@ export async function readInputFiles(recipe: ResolvedRecipe, raw: Recipe): Promi
 
 const tooLarge = (path: string, size: number, limit: number): LightkilnError => new LightkilnError('LIMIT_EXCEEDED', `${path}: file of ${size} bytes exceeds limits.maxInputBytes (${limit})`, { file: path });
 
+/** Repairs or rejects non-finite, negative and too-bright values in place. */
 export function sanitize(data: Float32Array, recipe: ResolvedRecipe, file: string): SanitizeCounts {
   const counts: SanitizeCounts = { nan: 0, infinite: 0, negative: 0, clampedHigh: 0 };
   const maxR = recipe.sanitize.maxRadiance;
