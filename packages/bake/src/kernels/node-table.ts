@@ -1,9 +1,9 @@
 /**
  * Per-bake node table of the hierarchical quadrature: for every pyramid texel of every level, the world-frame
- * data the tree walk reads, packed so one node is one run of NODE_TABLE_STRIDE float32 (40 bytes):
+ * data the tree walk reads, packed so one node is one run of NODE_TABLE_STRIDE float32 (44 bytes):
  * unit geometric mean direction (3), RGB mean radiance (3), luminance (Rec. 709 weights, ITU-R BT.709-6),
- * and the luminance-weighted mean direction vector minus the geometric mean vector (3; the mean vector
- * has length 1 for a point light, less when spread).
+ * and the luminance-weighted mean direction vector as unit direction (3) and length (1: 1 for a point
+ * light, less when spread; -1 marks uniform light, whose weight is the geometry's).
  * Built once per bake from the pyramid, the node geometry table and the centroid offsets, so the walk
  * does no face-frame rotations. Float32 keeps 1 - n.l accurate to about 1e-7, far below the alpha^2 of
  * any level the bake makes.
@@ -13,7 +13,7 @@ import { CUBE_FACE_BASIS } from '@lightkiln/math';
 import type { SharedBuffers } from '@lightkiln/pool';
 import { NODE_STRIDE } from '../stages/node-geometry.js';
 
-export const NODE_TABLE_STRIDE = 10;
+export const NODE_TABLE_STRIDE = 11;
 
 export interface NodeTableParams {
   /** Face size of the level, its first texel (pyramid texel index), its first node in the table, and its geometry table float offset. */
@@ -55,16 +55,30 @@ export function buildNodeTable(buffers: SharedBuffers, begin: number, end: numbe
     nodes[o + 4] = g;
     nodes[o + 5] = bl;
     nodes[o + 6] = 0.2126 * r + 0.7152 * g + 0.0722 * bl;
-    // The centroid offset turned to the world frame: zero where the light is uniform, so that the
-    // light's weight equals the geometry's exactly there.
+    // The luminance-weighted mean direction vector: the geometric mean vector (length |mean|) plus the
+    // centroid offset turned to the world frame; stored as its unit direction and its length, or length
+    // -1 where the light is uniform (offset zero), so the walk weights that light exactly as the geometry.
     const yc = cent[t * 3]!;
     const yu = cent[t * 3 + 1]!;
     const yv = cent[t * 3 + 2]!;
     // Offsets below 1e-9 are rounding of a uniform texel's moments (float32 keeps about 1e-7 of a
-    // direction anyway): exactly 0, so its light is weighted exactly as its geometry.
-    const small = yc * yc + yu * yu + yv * yv < 1e-18;
-    nodes[o + 7] = small ? 0 : B[b]! * yc + B[b + 3]! * yu + B[b + 6]! * yv;
-    nodes[o + 8] = small ? 0 : B[b + 1]! * yc + B[b + 4]! * yu + B[b + 7]! * yv;
-    nodes[o + 9] = small ? 0 : B[b + 2]! * yc + B[b + 5]! * yu + B[b + 8]! * yv;
+    // direction anyway).
+    if (yc * yc + yu * yu + yv * yv < 1e-18) {
+      nodes[o + 7] = 0;
+      nodes[o + 8] = 0;
+      nodes[o + 9] = 0;
+      nodes[o + 10] = -1;
+      continue;
+    }
+    const m = geo[gi + 7]!;
+    const lx = nodes[o]! * m + B[b]! * yc + B[b + 3]! * yu + B[b + 6]! * yv;
+    const ly = nodes[o + 1]! * m + B[b + 1]! * yc + B[b + 4]! * yu + B[b + 7]! * yv;
+    const lz = nodes[o + 2]! * m + B[b + 2]! * yc + B[b + 5]! * yu + B[b + 8]! * yv;
+    const len = Math.sqrt(lx * lx + ly * ly + lz * lz);
+    const invLen = len > 0 ? 1 / len : 0;
+    nodes[o + 7] = lx * invLen;
+    nodes[o + 8] = ly * invLen;
+    nodes[o + 9] = lz * invLen;
+    nodes[o + 10] = len < 1 ? len : 1;
   }
 }

@@ -209,20 +209,13 @@ export function prefilterQuadrature(buffers: SharedBuffers, begin: number, end: 
       den += omega * (wG < wMax ? wG : wMax);
       accepted++;
       if (y > 0) {
-        const ox = nodes[no + 7]!;
-        const oy = nodes[no + 8]!;
-        const oz = nodes[no + 9]!;
+        const yLen = nodes[no + 10]!;
         let wY: number;
-        if (ox === 0 && oy === 0 && oz === 0) {
+        if (yLen < 0) {
           wY = wG;
         } else {
-          const lx = nodes[no]! * mLen + ox;
-          const ly = nodes[no + 1]! * mLen + oy;
-          const lz = nodes[no + 2]! * mLen + oz;
-          let yLen = Math.sqrt(lx * lx + ly * ly + lz * lz);
-          if (yLen > 1) yLen = 1;
-          const cY = nx * lx + ny * ly + nz * lz;
-          wY = lobeMean(cY, yLen, yLen > 0 ? cY / yLen : 0, a2);
+          const cosY = nx * nodes[no + 7]! + ny * nodes[no + 8]! + nz * nodes[no + 9]!;
+          wY = lobeMean(cosY * yLen, yLen, cosY, a2);
         }
         if (wY > wMax) wY = wMax;
         wY *= omega;

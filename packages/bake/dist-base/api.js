@@ -1,0 +1,3 @@
+/** The public types of the async API (Baker in bake.ts). */
+export {};
+//# sourceMappingURL=api.js.map

@@ -1,0 +1,27 @@
+export { createBaker, Baker, STAGE_VERSIONS } from './bake.js';
+export type { LutOptions, BakerOptions, BakeRunOptions, BakeResult, BakedArtifact, ArtifactKind, BakePlan, PlanItem } from './bake.js';
+export { defaultLevelCount, levelRoughness, resolveRecipe, roughnessToLod, roughnessToLodFormula, SAMPLE_PRESETS, SAFE_NAME } from './recipe.js';
+export type { Recipe, RecipeInput, ResolvedRecipe, SamplePreset, CubeFormat, ShWindow } from './recipe.js';
+export { LightkilnError, USER_ERROR_CODES, toLightkilnError } from './errors.js';
+export type { LightkilnErrorCode } from './errors.js';
+export { CACHE_MARKER, FolderStore, MemoryStore, notACache, pruneStore } from './cache/store.js';
+export { refuseSymlink, writeFilesAtomic, removeLiveTempFiles, sweepStaleTempFiles, writeFileAtomic } from './files.js';
+export type { CacheStore, CacheEntryInfo } from './cache/store.js';
+export { HttpStore, LayeredStore, RemoteUnavailableError, redactUrl } from './cache/remote.js';
+export type { RemoteStoreOptions } from './cache/remote.js';
+export { decodeEntry, encodeEntry } from './cache/entry.js';
+export type { CacheStats } from './cache/entry.js';
+export type { Manifest, ManifestLevel, ManifestArtifact } from './manifest.js';
+export { MANIFEST_SCHEMA_VERSION, TOOL_NAME, TOOL_VERSION } from './manifest.js';
+export type { BakeProgress } from './stages/context.js';
+export type { BakeEvent } from './events.js';
+export { cubeCross } from './stages/encode.js';
+export { closeSharedPools, getSharedPool, WorkerPool } from '@lightkiln/pool';
+export { inspectBytes } from './inspect.js';
+export type { FileSummary, ValueRange } from './inspect.js';
+export { previewFromManifest } from './preview/index.js';
+export { renderContactSheet } from './preview/sheet.js';
+export type { PreviewInput } from './preview/sheet.js';
+export { sweepBudgets, sweepReport, SWEEP_METHODS } from './sweep.js';
+export type { SweepOptions, SweepPoint, SweepResult, SweepSummary, SweepMethod } from './sweep.js';
+//# sourceMappingURL=index.d.ts.map
