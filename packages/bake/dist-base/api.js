@@ -1,3 +1,0 @@
-/** The public types of the async API (Baker in bake.ts). */
-export {};
-//# sourceMappingURL=api.js.map
