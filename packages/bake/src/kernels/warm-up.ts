@@ -13,6 +13,16 @@ import { prefilterLevels } from '../stages/specular.js';
 
 export async function warmUp(): Promise<void> {
   const pool = new WorkerPool({ threads: 0 });
+  // The kernels see their buffers and parameters as a worker's tiles do: structured clones (shared
+  // memory stays shared). Given the stages' own objects, whose hidden classes differ, the compiled
+  // kernels deoptimised on the first real tile ("wrong map") and were compiled again.
+  const run = pool.run.bind(pool);
+  pool.run = (job) => run({
+    ...job,
+    buffers: structuredClone(job.buffers),
+    params: structuredClone(job.params),
+    segmentParams: structuredClone(job.segmentParams),
+  });
   const ctx: StageContext = { pool, signal: undefined, onProgress: undefined, targetTileCost: undefined };
   const width = 64;
   const height = 32;
