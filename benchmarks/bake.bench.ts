@@ -3,7 +3,7 @@
  * threads (wall time and share per stage), an unchanged rebake through the cache (target under 3% of the
  * cold bake), the specular stage and the warm whole bake on 2 threads against 1, the CLI's cold bake on 2
  * threads against 1 and its unchanged rebake against `node -e 0`, and peak RSS of that bake and of a
- * 4096 x 2048 input to 512^2 (each in a process of its own).
+ * 4096 x 2048 input to 512^2 and to 1024^2 (each in a process of its own).
  */
 
 import { spawnSync } from 'node:child_process';
@@ -137,6 +137,8 @@ export async function bakeBench(): Promise<void> {
   record('peak RSS, 2048x1024 -> 256^2', two.maxRssMiB, 'MiB');
   const big = child(4096, 512, 2);
   record('peak RSS, 4096x2048 -> 512^2', big.maxRssMiB, 'MiB', `wall ${(big.wallMs / 1000).toFixed(1)} s`);
+  const huge = child(4096, 1024, 2);
+  record('peak RSS, 4096x2048 -> 1024^2', huge.maxRssMiB, 'MiB', `wall ${(huge.wallMs / 1000).toFixed(1)} s, target <= 1024`);
   await cold.close();
   await warm.close();
   await closeSharedPools();
