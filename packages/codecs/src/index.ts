@@ -11,7 +11,7 @@ export type { PfmDecodeOptions, PfmEncodeOptions } from './pfm.js';
 export { encodePng, crc32, linearToSrgb, toneMapToSrgb8, packRgbm, unpackRgbm, packRgbd, unpackRgbd } from './png.js';
 export type { Rgba8Image, PngEncodeOptions, PngFilterChoice, PreviewOptions, ToneCurve } from './png.js';
 export { encodeKtx2, decodeKtx2, buildDfd, packTexels, packRgbTexels, unpackTexels, ktx2FormatInfo, ktx2FormatFromVk, KTX2_IDENTIFIER } from './ktx2.js';
-export type { Ktx2Format, Ktx2EncodeInput, Ktx2File, Ktx2Level, Ktx2Supercompression, Ktx2DecodeOptions } from './ktx2.js';
+export type { Ktx2Format, Ktx2EncodeInput, Ktx2File, Ktx2Level, Ktx2LevelPacker, Ktx2Supercompression, Ktx2DecodeOptions } from './ktx2.js';
 export { sniffFormat, decodeImage } from './sniff.js';
 export type { SniffedFormat, DecodeImageOptions } from './sniff.js';
 export { initZstd, zstdReady } from './zstd.js';

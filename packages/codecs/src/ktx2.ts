@@ -113,15 +113,17 @@ export function packTexels(format: Ktx2Format, data: Float32Array, texelCount: n
  * Packs RGB float texels (3 interleaved, `texelCount` of them) straight into the format's bytes, without
  * a float copy in the format's channel count: alpha 1 for the RGBA formats, and each channel above
  * `max` (the format's largest finite value, per channel) stored as that value. Returns the bytes and the
- * number of texels clamped. Same bytes as packTexels on the clamped RGBA data.
+ * number of texels clamped. Same bytes as packTexels on the clamped RGBA data. With `target` (exactly the
+ * level's packed length, e.g. its place in a file being written) the bytes go there.
  */
-export function packRgbTexels(format: Ktx2Format, rgb: Float32Array, max: readonly [number, number, number]): { bytes: Uint8Array; clamped: number } {
+export function packRgbTexels(format: Ktx2Format, rgb: Float32Array, max: readonly [number, number, number], target?: Uint8Array): { bytes: Uint8Array; clamped: number } {
   const info = FORMATS[format];
   if (info === undefined || info.channels < 3) throw invalidArgument('ktx2', `format "${String(format)}" does not hold RGB texels`);
   const texelCount = rgb.length / 3;
   if (!Number.isInteger(texelCount)) throw invalidArgument('ktx2', `RGB level holds ${rgb.length} values, not a multiple of 3`);
-  const out = new Uint8Array(texelCount * info.bytesPerTexel);
-  const view = new DataView(out.buffer);
+  if (target !== undefined && target.length !== texelCount * info.bytesPerTexel) throw invalidArgument('ktx2', `target holds ${target.length} bytes, the level packs to ${texelCount * info.bytesPerTexel}`);
+  const out = target ?? new Uint8Array(texelCount * info.bytesPerTexel);
+  const view = new DataView(out.buffer, out.byteOffset, out.byteLength);
   const [mr, mg, mb] = max;
   const one16 = float32ToBinary16(1);
   let clamped = 0;
@@ -174,6 +176,12 @@ export function unpackTexels(format: Ktx2Format, bytes: Uint8Array): Float32Arra
 
 export type Ktx2Supercompression = 'none' | 'zlib' | 'zstd';
 
+/** A level that packs itself: `byteLength` packed bytes, written by pack() into the array it is given. */
+export interface Ktx2LevelPacker {
+  readonly byteLength: number;
+  pack(target: Uint8Array): void;
+}
+
 export interface Ktx2EncodeInput {
   readonly format: Ktx2Format;
   /** Size of level 0; cubemaps need width = height. */
@@ -184,9 +192,11 @@ export interface Ktx2EncodeInput {
   /**
    * Texels per level, level 0 first; each level is the faces one after another, rows top first. A
    * Float32Array holds `channels` of the format interleaved; a Uint8Array holds texels already packed in
-   * the format (packTexels, packRgbTexels). A partial chain is allowed (any count >= 1).
+   * the format (packTexels, packRgbTexels); a Ktx2LevelPacker packs itself into the bytes it is given
+   * (without supercompression, its place in the file: no second copy of the level). A partial chain is
+   * allowed (any count >= 1).
    */
-  readonly levels: readonly (Float32Array | Uint8Array)[];
+  readonly levels: readonly (Float32Array | Uint8Array | Ktx2LevelPacker)[];
   /** Extra key/values (keys must not start with "KTX"/"ktx"); strings are written NUL-terminated. */
   readonly keyValues?: Readonly<Record<string, string | Uint8Array>>;
   /** KTXwriter value; default "lightkiln"; "" omits the entry (the spec only encourages it). */
@@ -218,14 +228,24 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   // KTX 2.0 supercompressionScheme: 2 = Zstandard, 3 = zlib (KTX 2.0 specification, section 3.4).
   const scheme = sc === 'zstd' ? 2 : sc === 'zlib' ? 3 : 0;
   // Level payloads (after optional supercompression, one frame or stream per level).
-  const payloads: Uint8Array[] = [];
+  // Without supercompression a packer writes into the file itself (below); its payload is just a length.
+  const payloads: (Uint8Array | Ktx2LevelPacker)[] = [];
   const uncompressed: number[] = [];
   for (let l = 0; l < levelCount; l++) {
     const w = Math.max(1, width >> l);
     const h = Math.max(1, height >> l);
     const level = input.levels[l]!;
-    if (level instanceof Uint8Array && level.length !== w * h * faceCount * info.bytesPerTexel) throw invalidArgument(file, `packed level ${l} holds ${level.length} bytes, expected ${w * h * faceCount * info.bytesPerTexel}`);
-    const raw = level instanceof Uint8Array ? level : packTexels(input.format, level, w * h * faceCount);
+    const expected = w * h * faceCount * info.bytesPerTexel;
+    if (!(level instanceof Float32Array)) {
+      const length = level instanceof Uint8Array ? level.length : level.byteLength;
+      if (length !== expected) throw invalidArgument(file, `packed level ${l} holds ${length} bytes, expected ${expected}`);
+    }
+    if (scheme === 0 && !(level instanceof Float32Array)) {
+      uncompressed.push(expected);
+      payloads.push(level);
+      continue;
+    }
+    const raw = level instanceof Uint8Array ? level : level instanceof Float32Array ? packTexels(input.format, level, w * h * faceCount) : packedLevel(level);
     uncompressed.push(raw.length);
     payloads.push(scheme === 3 ? zlibSync(raw, { level: (input.zlibLevel ?? 6) as 0 | 1 | 2 | 3 | 4 | 5 | 6 | 7 | 8 | 9 }) : scheme === 2 ? zstdCompress(raw, input.zstdLevel ?? 3, file) : raw);
   }
@@ -261,7 +281,7 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   for (let l = levelCount - 1; l >= 0; l--) {
     pos = align(pos, levelAlign);
     offsets[l] = pos;
-    pos += payloads[l]!.length;
+    pos += payloadLength(payloads[l]!);
   }
   const out = new Uint8Array(pos);
   const view = new DataView(out.buffer);
@@ -276,14 +296,28 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   view.setBigUint64(72, 0n, true);
   for (let l = 0; l < levelCount; l++) {
     view.setBigUint64(80 + l * 24, BigInt(offsets[l]!), true);
-    view.setBigUint64(88 + l * 24, BigInt(payloads[l]!.length), true);
+    view.setBigUint64(88 + l * 24, BigInt(payloadLength(payloads[l]!)), true);
     view.setBigUint64(96 + l * 24, BigInt(uncompressed[l]!), true);
   }
   for (let i = 0; i < dfd.length; i++) view.setUint32(dfdOffset + i * 4, dfd[i]!, true);
   let kp = kvdOffset;
   for (const p of kvParts) { out.set(p, kp); kp += p.length; }
-  for (let l = 0; l < levelCount; l++) out.set(payloads[l]!, offsets[l]!);
+  for (let l = 0; l < levelCount; l++) {
+    const payload = payloads[l]!;
+    if (payload instanceof Uint8Array) out.set(payload, offsets[l]!);
+    else payload.pack(out.subarray(offsets[l]!, offsets[l]! + payload.byteLength));
+  }
   return out;
+}
+
+function payloadLength(payload: Uint8Array | Ktx2LevelPacker): number {
+  return payload instanceof Uint8Array ? payload.length : payload.byteLength;
+}
+
+function packedLevel(packer: Ktx2LevelPacker): Uint8Array {
+  const bytes = new Uint8Array(packer.byteLength);
+  packer.pack(bytes);
+  return bytes;
 }
 
 export interface Ktx2Level {

@@ -111,6 +111,28 @@ describe('KTX 2.0 (Khronos KTX 2.0 spec; DF spec 1.3)', () => {
     expect(half.getUint16(8, true)).toBe(0x7bff);
   });
 
+  it('writes the same file from levels that pack themselves as from packed levels, read back by ktx-parse (registry reference reader)', () => {
+    const levels = [new Float32Array(6 * 4 * 4 * 3), new Float32Array(6 * 2 * 2 * 3), new Float32Array(6 * 3)];
+    levels.forEach((l, m) => { for (let i = 0; i < l.length; i++) l[i] = ((i * 37 + m * 11) % 97) / 7 - 2; });
+    const max: [number, number, number] = [65504, 65504, 65504];
+    for (const supercompression of ['none', 'zlib'] as const) {
+      const packed = levels.map((l) => packRgbTexels('rgba16f', l, max).bytes);
+      const reference = encodeKtx2({ format: 'rgba16f', width: 4, height: 4, faceCount: 6, levels: packed, supercompression });
+      let calls = 0;
+      const packers = levels.map((l) => ({ byteLength: (l.length / 3) * 8, pack: (target: Uint8Array) => { calls++; packRgbTexels('rgba16f', l, max, target); } }));
+      const bytes = encodeKtx2({ format: 'rgba16f', width: 4, height: 4, faceCount: 6, levels: packers, supercompression });
+      expect(bytes).toEqual(reference);
+      expect(calls).toBe(3);
+      const parsed = readKtx2(bytes);
+      expect(parsed.levels.length).toBe(3);
+      expect(parsed.supercompressionScheme).toBe(supercompression === 'zlib' ? 3 : 0);
+    }
+    // A packer whose length is not the level's is refused before anything is written.
+    const wrong = { byteLength: 8, pack: () => { throw new Error('not reached'); } };
+    expect(() => encodeKtx2({ format: 'rgba16f', width: 4, height: 4, faceCount: 6, levels: [wrong], supercompression: 'none' })).toThrow(/packed level 0 holds 8 bytes, expected 768/);
+    expect(() => packRgbTexels('rgba16f', levels[2]!, max, new Uint8Array(5))).toThrow(/target holds 5 bytes/);
+  });
+
   it('writes the reference DFD words for every format', () => {
     const hex = (a: Uint32Array): string[] => [...a].map((w) => w.toString(16).padStart(8, '0'));
     const rgba16 = buildDfd('rgba16f');

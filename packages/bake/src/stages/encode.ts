@@ -1,6 +1,6 @@
 /** Stage 7: GPU files (KTX 2.0) and inspection views of the baked data. */
 
-import { encodeKtx2, packRgbTexels, type FloatImage, type Ktx2Format } from '@lightkiln/codecs';
+import { encodeKtx2, ktx2FormatInfo, packRgbTexels, type FloatImage, type Ktx2Format, type Ktx2LevelPacker } from '@lightkiln/codecs';
 import type { CubeFormat } from '../recipe.js';
 import type { DfgTable } from './dfg.js';
 
@@ -24,12 +24,16 @@ export const FORMAT_MAX: Readonly<Record<CubeFormat, readonly [number, number, n
  */
 export function encodeCubeKtx2(levels: readonly Float32Array[], size: number, format: CubeFormat, supercompression: 'none' | 'zlib' | 'zstd', keyValues: Record<string, string>): { bytes: Uint8Array; clamped: number } {
   let clamped = 0;
-  const packed = levels.map((l) => {
-    const p = packRgbTexels(format as Ktx2Format, l, FORMAT_MAX[format]);
-    clamped += p.clamped;
-    return p.bytes;
-  });
-  const bytes = encodeKtx2({ format: format as Ktx2Format, width: size, height: size, faceCount: 6, levels: packed, supercompression, writer: WRITER, keyValues });
+  const bytesPerTexel = ktx2FormatInfo(format as Ktx2Format).bytesPerTexel;
+  // Each level packs itself where the file wants it (uncompressed: straight into the file, so a level is
+  // never held both packed and in the file; a 1024 cube's levels are 67 MB as rgba16f).
+  const packers: Ktx2LevelPacker[] = levels.map((l) => ({
+    byteLength: (l.length / 3) * bytesPerTexel,
+    pack: (target: Uint8Array) => {
+      clamped += packRgbTexels(format as Ktx2Format, l, FORMAT_MAX[format], target).clamped;
+    },
+  }));
+  const bytes = encodeKtx2({ format: format as Ktx2Format, width: size, height: size, faceCount: 6, levels: packers, supercompression, writer: WRITER, keyValues });
   return { bytes, clamped };
 }
 
