@@ -236,10 +236,8 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
     const h = Math.max(1, height >> l);
     const level = input.levels[l]!;
     const expected = w * h * faceCount * info.bytesPerTexel;
-    if (!(level instanceof Float32Array)) {
-      const length = level instanceof Uint8Array ? level.length : level.byteLength;
-      if (length !== expected) throw invalidArgument(file, `packed level ${l} holds ${length} bytes, expected ${expected}`);
-    }
+    // Packed bytes and packers both state their length as byteLength.
+    if (!(level instanceof Float32Array) && level.byteLength !== expected) throw invalidArgument(file, `packed level ${l} holds ${level.byteLength} bytes, expected ${expected}`);
     if (scheme === 0 && !(level instanceof Float32Array)) {
       uncompressed.push(expected);
       payloads.push(level);
@@ -281,7 +279,7 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   for (let l = levelCount - 1; l >= 0; l--) {
     pos = align(pos, levelAlign);
     offsets[l] = pos;
-    pos += payloadLength(payloads[l]!);
+    pos += payloads[l]!.byteLength;
   }
   const out = new Uint8Array(pos);
   const view = new DataView(out.buffer);
@@ -296,7 +294,7 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
   view.setBigUint64(72, 0n, true);
   for (let l = 0; l < levelCount; l++) {
     view.setBigUint64(80 + l * 24, BigInt(offsets[l]!), true);
-    view.setBigUint64(88 + l * 24, BigInt(payloadLength(payloads[l]!)), true);
+    view.setBigUint64(88 + l * 24, BigInt(payloads[l]!.byteLength), true);
     view.setBigUint64(96 + l * 24, BigInt(uncompressed[l]!), true);
   }
   for (let i = 0; i < dfd.length; i++) view.setUint32(dfdOffset + i * 4, dfd[i]!, true);
@@ -308,10 +306,6 @@ export function encodeKtx2(input: Ktx2EncodeInput): Uint8Array {
     else payload.pack(out.subarray(offsets[l]!, offsets[l]! + payload.byteLength));
   }
   return out;
-}
-
-function payloadLength(payload: Uint8Array | Ktx2LevelPacker): number {
-  return payload instanceof Uint8Array ? payload.length : payload.byteLength;
 }
 
 function packedLevel(packer: Ktx2LevelPacker): Uint8Array {
